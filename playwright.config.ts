@@ -1,0 +1,32 @@
+import { defineConfig, devices } from '@playwright/test';
+
+const port = Number(process.env.E2E_PORT ?? 4173);
+
+export default defineConfig({
+	testDir: 'tests/e2e',
+	fullyParallel: false,
+	workers: 1,
+	retries: 0,
+	forbidOnly: !!process.env.CI,
+	reporter: [['list']],
+	timeout: 30_000,
+	use: {
+		baseURL: `http://127.0.0.1:${port}`,
+		trace: 'retain-on-failure',
+		launchOptions: {
+			executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+			args: ['--disable-gpu', '--disable-quic']
+		}
+	},
+	projects: [
+		{ name: 'desktop', use: { ...devices['Desktop Chrome'] }, testIgnore: /phone\.spec\.ts/ },
+		{ name: 'phone', use: { ...devices['Pixel 7'] }, testMatch: /phone\.spec\.ts/ }
+	],
+	webServer: {
+		command: 'node build',
+		url: `http://127.0.0.1:${port}/api/health`,
+		reuseExistingServer: false,
+		timeout: 60_000,
+		env: { PORT: String(port), HOST: '127.0.0.1', ORIGIN: `http://127.0.0.1:${port}` }
+	}
+});

@@ -1,0 +1,24 @@
+// `npm run bench`: runs each registered benchmark in turn; add a module under scripts/bench/ and list it below.
+import { gradingBench } from './bench/grading';
+import type { Bench } from './bench/timing';
+
+const BENCHES: Bench[] = [gradingBench];
+
+async function main(): Promise<number> {
+	let missed = 0;
+	for (const bench of BENCHES) {
+		console.log(`\n■ ${bench.name}`);
+		try {
+			const report = await bench.run();
+			for (const line of report.lines) console.log(`  ${line}`);
+			if (!report.ok) missed++;
+		} catch (error) {
+			missed++;
+			console.error(`  failed: ${error instanceof Error ? error.message : String(error)}`);
+		}
+	}
+	console.log(missed ? `\n${missed} of ${BENCHES.length} benchmarks missed their target.` : `\nAll ${BENCHES.length} benchmarks met their targets.`);
+	return missed ? 1 : 0;
+}
+
+main().then((code) => process.exit(code));

@@ -1,0 +1,112 @@
+// Safe access to sharp: input checks shared by every reader, and the small decode used for measuring.
+import sharp, { type Sharp } from 'sharp';
+import { FrameReadError, malformed, tooLarge, tooManyPixels } from './errors';
+import { detectFileType, type FileType } from './detect';
+
+export interface InputLimits {
+	/** Largest file accepted, bytes (default 40 MB). */
+	maxBytes: number;
+	/** Largest image accepted, width × height (default 150 MP, above any current camera). */
+	maxPixels: number;
+}
+
+export const DEFAULT_LIMITS: Readonly<InputLimits> = Object.freeze({
+	maxBytes: 40 * 1024 * 1024,
+	maxPixels: 150_000_000
+});
+
+/** Longest side of the image that is measured; JPEG shrink-on-load gets there without a full decode. */
+export const ANALYSIS_SIZE = 1024;
+// smaller than this and there is no subject and background to tell apart
+const MIN_SIDE = 16;
+
+export function resolveLimits(limits: Partial<InputLimits> | undefined): InputLimits {
+	return { ...DEFAULT_LIMITS, ...limits };
+}
+
+/** Size and type checks that need no decoding; returns the detected type. */
+export function checkInput(bytes: Uint8Array, limits: InputLimits): FileType {
+	if (!(bytes instanceof Uint8Array) || bytes.length === 0) {
+		throw new FrameReadError('empty', 'The file is empty. Please choose the photo again.');
+	}
+	if (bytes.length > limits.maxBytes) throw tooLarge(bytes.length, limits.maxBytes);
+	const type = detectFileType(bytes);
+	if (type.kind === 'unknown') {
+		throw new FrameReadError(
+			'unsupported-type',
+			'This file is not a photo we can read. Upload a JPEG (or PNG, WebP, TIFF, AVIF) straight from the camera or your editor.'
+		);
+	}
+	if (type.kind === 'gif') {
+		throw new FrameReadError('unsupported-type', 'GIF files carry no camera settings. Upload the JPEG from the camera instead.');
+	}
+	return type;
+}
+
+export function sharpInput(bytes: Uint8Array, limits: InputLimits): Sharp {
+	// failOn 'error' also refuses truncated data; 'warning' would refuse harmless quirks some cameras write
+	return sharp(bytes, { limitInputPixels: limits.maxPixels, failOn: 'error', autoOrient: true });
+}
+
+/** Turns anything sharp throws into a FrameReadError. */
+export function explainSharpError(error: unknown, limits: InputLimits): FrameReadError {
+	if (error instanceof FrameReadError) return error;
+	const message = error instanceof Error ? error.message : String(error);
+	if (/pixel limit/i.test(message)) return tooManyPixels(null, null, limits.maxPixels);
+	return malformed(error);
+}
+
+export interface ImageHeader {
+	/** Oriented size, as the frame is shown. */
+	width: number;
+	height: number;
+	/** Exif block as sharp found it (WebP and AVIF need this; exifr cannot open those files). */
+	exif: Buffer | null;
+}
+
+export async function readHeader(bytes: Uint8Array, limits: InputLimits): Promise<ImageHeader> {
+	try {
+		const meta = await sharp(bytes, { limitInputPixels: limits.maxPixels }).metadata();
+		const width = meta.autoOrient?.width ?? meta.width;
+		const height = meta.autoOrient?.height ?? meta.height;
+		if (!width || !height) throw malformed(new Error('no image size in header'));
+		if (width * height > limits.maxPixels) throw tooManyPixels(width, height, limits.maxPixels);
+		return { width, height, exif: meta.exif ?? null };
+	} catch (error) {
+		throw explainSharpError(error, limits);
+	}
+}
+
+/** The Exif block from a container sharp can parse but not decode (HEIC); null when there is none. */
+export async function readEmbeddedExif(bytes: Uint8Array, limits: InputLimits): Promise<Buffer | null> {
+	const meta = await sharp(bytes, { limitInputPixels: limits.maxPixels }).metadata();
+	return meta.exif ?? null;
+}
+
+export interface DecodedImage {
+	data: Uint8Array;
+	width: number;
+	height: number;
+	channels: number;
+}
+
+/** Oriented 8-bit sRGB pixels, longest side at most ANALYSIS_SIZE. */
+export async function decodeForAnalysis(bytes: Uint8Array, limits: InputLimits): Promise<DecodedImage> {
+	try {
+		const { data, info } = await sharpInput(bytes, limits)
+			.resize({ width: ANALYSIS_SIZE, height: ANALYSIS_SIZE, fit: 'inside', withoutEnlargement: true })
+			.toColourspace('srgb')
+			.removeAlpha()
+			.raw({ depth: 'uchar' })
+			.toBuffer({ resolveWithObject: true });
+		if (info.width < MIN_SIDE || info.height < MIN_SIDE) {
+			throw new FrameReadError(
+				'too-small',
+				`This image is only ${info.width} × ${info.height} pixels, too small to measure. Upload the full-size photo.`
+			);
+		}
+		return { data, width: info.width, height: info.height, channels: info.channels };
+	} catch (error) {
+		throw explainSharpError(error, limits);
+	}
+}

@@ -1,0 +1,271 @@
+// Reads the Exif tags grading needs and normalises them; a missing or unusable tag becomes null.
+import exifr from 'exifr';
+import { decodeFlash, type FlashInfo } from './flash';
+
+export interface ExifReport {
+	/** false when the file carries no Exif block at all. */
+	found: boolean;
+	/** seconds */
+	exposureTime: number | null;
+	fNumber: number | null;
+	iso: number | null;
+	/** EV, as set on the camera (ExposureBiasValue) */
+	exposureBias: number | null;
+	flash: FlashInfo | null;
+	/** mm, actual */
+	focalLength: number | null;
+	/** mm, from FocalLengthIn35mmFilm only (never estimated from a crop factor) */
+	focal35: number | null;
+	whiteBalance: 'auto' | 'manual' | null;
+	/** Camera clock, 'YYYY-MM-DDTHH:MM:SS' with the offset when OffsetTimeOriginal gives one. */
+	dateTimeOriginal: string | null;
+	make: string | null;
+	model: string | null;
+	/** TIFF/Exif Orientation 1–8 */
+	orientation: number | null;
+	/** Fields filled from a second-choice tag, e.g. { iso: 'RecommendedExposureIndex' }. */
+	sources: Partial<Record<ExifField, string>>;
+}
+
+export type ExifField =
+	| 'exposureTime'
+	| 'fNumber'
+	| 'iso'
+	| 'exposureBias'
+	| 'flash'
+	| 'focalLength'
+	| 'focal35'
+	| 'whiteBalance'
+	| 'dateTimeOriginal'
+	| 'make'
+	| 'model';
+
+/** The Exif tag (CIPA DC-008 name) behind each field, for "the file has no … tag" messages. */
+export const EXIF_TAG_NAMES: Record<ExifField, string> = {
+	exposureTime: 'ExposureTime',
+	fNumber: 'FNumber',
+	iso: 'PhotographicSensitivity (ISO)',
+	exposureBias: 'ExposureBiasValue',
+	flash: 'Flash',
+	focalLength: 'FocalLength',
+	focal35: 'FocalLengthIn35mmFilm',
+	whiteBalance: 'WhiteBalance',
+	dateTimeOriginal: 'DateTimeOriginal',
+	make: 'Make',
+	model: 'Model'
+};
+
+// SubfileType (NewSubfileType, 0x00FE), DNGVersion, SubIFD and PhotometricInterpretation tell camera RAW from a TIFF
+const IFD0_TAGS = ['Make', 'Model', 'Orientation', 'SubIFD', 'SubfileType', 'DNGVersion', 'PhotometricInterpretation'];
+const EXIF_TAGS = [
+	'ExposureTime',
+	'FNumber',
+	'ISO',
+	'SensitivityType',
+	'StandardOutputSensitivity',
+	'RecommendedExposureIndex',
+	'ISOSpeed',
+	'ExposureIndex',
+	'ShutterSpeedValue',
+	'ApertureValue',
+	'ExposureCompensation',
+	'Flash',
+	'FocalLength',
+	'FocalLengthIn35mmFormat',
+	'WhiteBalance',
+	'DateTimeOriginal',
+	'OffsetTimeOriginal'
+];
+
+// Raw numbers only (no translated strings, no Date objects), and nothing we do not need:
+// no GPS, no maker notes, no owner or serial fields ever enter a report.
+const EXIFR_OPTIONS = {
+	tiff: true,
+	ifd0: { pick: IFD0_TAGS },
+	exif: { pick: EXIF_TAGS },
+	ifd1: false,
+	gps: false,
+	interop: false,
+	makerNote: false,
+	userComment: false,
+	xmp: false,
+	icc: false,
+	iptc: false,
+	jfif: false,
+	ihdr: false,
+	translateValues: false,
+	reviveValues: false,
+	sanitize: true,
+	mergeOutput: true
+};
+
+export type ExifTags = Record<string | number, unknown>;
+
+/**
+ * Parses Exif from a whole file (JPEG, TIFF, PNG, HEIC) or from a bare TIFF-structured Exif block
+ * (as sharp returns for WebP and AVIF). Resolves null when there is no Exif; rejects on damaged data.
+ */
+export async function readExifTags(source: Uint8Array): Promise<ExifTags | null> {
+	const tiff = stripExifHeader(source);
+	const parsed = (await exifr.parse(toBuffer(tiff), EXIFR_OPTIONS)) as ExifTags | undefined;
+	if (!parsed) return null;
+	// exifr reports some damage as an `errors` list instead of throwing
+	const { errors, ...tags } = parsed;
+	if (Object.keys(tags).length > 0) return tags;
+	if (Array.isArray(errors) && errors.length > 0) throw errors[0];
+	return null;
+}
+
+// sharp hands back the APP1 payload, which starts with "Exif\0\0" before the TIFF header
+function stripExifHeader(bytes: Uint8Array): Uint8Array {
+	const isHeader =
+		bytes.length > 6 && bytes[0] === 0x45 && bytes[1] === 0x78 && bytes[2] === 0x69 && bytes[3] === 0x66 && bytes[4] === 0 && bytes[5] === 0;
+	return isHeader ? bytes.subarray(6) : bytes;
+}
+
+const toBuffer = (bytes: Uint8Array) =>
+	Buffer.isBuffer(bytes) ? bytes : Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+
+/** First finite number in a number, numeric string ('1/500' too), array or typed array. */
+export function firstNumber(value: unknown): number | null {
+	if (typeof value === 'number') return Number.isFinite(value) ? value : null;
+	if (typeof value === 'string') {
+		const text = value.replace(/\0/g, '').trim();
+		const fraction = /^(-?\d+(?:\.\d+)?)\s*\/\s*(\d+(?:\.\d+)?)$/.exec(text);
+		const n = fraction ? Number(fraction[1]) / Number(fraction[2]) : text === '' ? NaN : Number(text);
+		return Number.isFinite(n) ? n : null;
+	}
+	if (Array.isArray(value) || ArrayBuffer.isView(value)) {
+		for (const item of Array.from(value as ArrayLike<unknown>)) {
+			const n = firstNumber(item);
+			// cameras write ISO as [100, 0]: the trailing zeros are padding
+			if (n !== null && n !== 0) return n;
+		}
+	}
+	return null;
+}
+
+function positive(value: unknown): number | null {
+	const n = firstNumber(value);
+	return n !== null && n > 0 ? n : null;
+}
+
+function text(value: unknown): string | null {
+	if (typeof value !== 'string') return null;
+	const cleaned = value.replace(/\0/g, '').trim();
+	return cleaned === '' ? null : cleaned;
+}
+
+// PhotographicSensitivity saturates at 65535; the real value then sits in the tag that
+// SensitivityType names (CIPA DC-008, 4.6.5, tags 0x8830–0x8833).
+const ISO_FALLBACKS = ['RecommendedExposureIndex', 'StandardOutputSensitivity', 'ISOSpeed', 'ExposureIndex'] as const;
+const ISO_SATURATED = 65535;
+
+function readIso(tags: ExifTags, sources: ExifReport['sources']): number | null {
+	const primary = positive(tags.ISO);
+	if (primary !== null && primary < ISO_SATURATED) return primary;
+	for (const tag of ISO_FALLBACKS) {
+		const value = positive(tags[tag]);
+		if (value !== null) {
+			sources.iso = tag;
+			return value;
+		}
+	}
+	return primary;
+}
+
+// APEX values (CIPA DC-008 Annex C): Tv = −log2(t), Av = 2·log2(N); used only when the direct tag is absent
+function readExposureTime(tags: ExifTags, sources: ExifReport['sources']): number | null {
+	const direct = positive(tags.ExposureTime);
+	if (direct !== null) return direct;
+	const tv = firstNumber(tags.ShutterSpeedValue);
+	if (tv === null || Math.abs(tv) > 30) return null;
+	sources.exposureTime = 'ShutterSpeedValue';
+	return 2 ** -tv;
+}
+
+function readFNumber(tags: ExifTags, sources: ExifReport['sources']): number | null {
+	const direct = positive(tags.FNumber);
+	if (direct !== null) return direct;
+	const av = firstNumber(tags.ApertureValue);
+	if (av === null || av < 0 || av > 30) return null;
+	sources.fNumber = 'ApertureValue';
+	return 2 ** (av / 2);
+}
+
+function readBias(tags: ExifTags): number | null {
+	const bias = firstNumber(tags.ExposureCompensation);
+	// a bias beyond ±15 EV is a broken rational, not a camera setting
+	return bias !== null && Math.abs(bias) <= 15 ? bias : null;
+}
+
+function readWhiteBalance(tags: ExifTags): ExifReport['whiteBalance'] {
+	const code = firstNumber(tags.WhiteBalance);
+	return code === 0 ? 'auto' : code === 1 ? 'manual' : null;
+}
+
+function readDateTime(tags: ExifTags): string | null {
+	const raw = text(tags.DateTimeOriginal);
+	const match = raw && /^(\d{4}):(\d{2}):(\d{2})[ T](\d{2}):(\d{2}):(\d{2})/.exec(raw);
+	if (!match || match[1] === '0000' || match[2] === '00') return null;
+	const [, y, mo, d, h, mi, s] = match;
+	const offset = text(tags.OffsetTimeOriginal);
+	return `${y}-${mo}-${d}T${h}:${mi}:${s}${offset && /^[+-]\d{2}:\d{2}$/.test(offset) ? offset : ''}`;
+}
+
+export function emptyExifReport(): ExifReport {
+	return {
+		found: false,
+		exposureTime: null,
+		fNumber: null,
+		iso: null,
+		exposureBias: null,
+		flash: null,
+		focalLength: null,
+		focal35: null,
+		whiteBalance: null,
+		dateTimeOriginal: null,
+		make: null,
+		model: null,
+		orientation: null,
+		sources: {}
+	};
+}
+
+export function normaliseExif(tags: ExifTags | null): ExifReport {
+	if (!tags) return emptyExifReport();
+	const sources: ExifReport['sources'] = {};
+	const orientation = firstNumber(tags.Orientation);
+	return {
+		found: true,
+		exposureTime: readExposureTime(tags, sources),
+		fNumber: readFNumber(tags, sources),
+		iso: readIso(tags, sources),
+		exposureBias: readBias(tags),
+		flash: decodeFlash(firstNumber(tags.Flash)),
+		focalLength: positive(tags.FocalLength),
+		focal35: positive(tags.FocalLengthIn35mmFormat),
+		whiteBalance: readWhiteBalance(tags),
+		dateTimeOriginal: readDateTime(tags),
+		make: text(tags.Make),
+		model: text(tags.Model),
+		orientation: orientation !== null && Number.isInteger(orientation) && orientation >= 1 && orientation <= 8 ? orientation : null,
+		sources
+	};
+}
+
+/**
+ * NEF, ARW, DNG and PEF are TIFF containers whose first image is a preview or raw sensor data:
+ * DNGVersion, a reduced-resolution first image, CFA/LinearRaw photometrics or SubIFDs give them away.
+ */
+export function looksLikeCameraRaw(tags: ExifTags | null): boolean {
+	if (!tags) return false;
+	const photometric = firstNumber(tags.PhotometricInterpretation);
+	return (
+		tags.DNGVersion !== undefined ||
+		firstNumber(tags.SubfileType) === 1 ||
+		photometric === 32803 ||
+		photometric === 34892 ||
+		tags.SubIFD !== undefined
+	);
+}

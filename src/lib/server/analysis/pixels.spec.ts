@@ -1,0 +1,103 @@
+import { describe, expect, it } from 'vitest';
+import { wcagLuminance } from 'culori';
+import { measurePixels, MID_GREY, stopsFromMidGrey, type RgbImage } from './pixels';
+import { toPixelBounds, type Box } from './region';
+
+type Rgb8 = [number, number, number];
+
+function image(width: number, height: number, paint: (x: number, y: number) => Rgb8): RgbImage {
+	const data = new Uint8Array(width * height * 3);
+	for (let y = 0; y < height; y++) {
+		for (let x = 0; x < width; x++) data.set(paint(x, y), (y * width + x) * 3);
+	}
+	return { data, width, height, channels: 3 };
+}
+
+const uniform = (c: Rgb8, w = 40, h = 30) => image(w, h, () => c);
+// culori (npm reference library): sRGB decode per IEC 61966-2-1, then BT.709 weights
+const culoriY = ([r, g, b]: Rgb8) => wcagLuminance({ mode: 'rgb', r: r / 255, g: g / 255, b: b / 255 });
+const BOX: Box = { x: 0.25, y: 0.25, w: 0.5, h: 0.5 };
+
+describe('measurePixels', () => {
+	it('measures linear-light luminance as the culori reference does', () => {
+		for (const c of [[118, 118, 118], [200, 120, 40], [10, 60, 230], [3, 3, 3]] as Rgb8[]) {
+			const m = measurePixels(uniform(c), BOX);
+			expect(m.subject.luminance, c.join()).toBeCloseTo(culoriY(c), 10);
+			expect(m.background.luminance, c.join()).toBeCloseTo(culoriY(c), 10);
+		}
+	});
+
+	it('weights the channels per ITU-R BT.709-6 (0.2126, 0.7152, 0.0722)', () => {
+		// ITU-R BT.709-6 item 3.2 luminance equation
+		expect(measurePixels(uniform([255, 0, 0]), BOX).subject.luminance).toBeCloseTo(0.2126, 10);
+		expect(measurePixels(uniform([0, 255, 0]), BOX).subject.luminance).toBeCloseTo(0.7152, 10);
+		expect(measurePixels(uniform([0, 0, 255]), BOX).subject.luminance).toBeCloseTo(0.0722, 10);
+	});
+
+	it('puts 8-bit code 118 at mid-grey, about 0 stops', () => {
+		// IEC 61966-2-1: ((118/255 + 0.055)/1.055)^2.4 = 0.1812; ISO 12232:2019 SOS puts 18 % grey at code 118
+		const m = measurePixels(uniform([118, 118, 118]), BOX);
+		expect(m.subject.luminance).toBeCloseTo(0.1812, 4);
+		expect(Math.abs(m.subject.stops)).toBeLessThan(0.02);
+	});
+
+	it('averages light, not code values: half black and half white is 0.5, not code 128', () => {
+		const m = measurePixels(image(40, 30, (x) => (x % 2 ? [255, 255, 255] : [0, 0, 0])), BOX);
+		expect(m.background.luminance).toBeCloseTo(0.5, 10);
+		expect(m.background.stops).toBeCloseTo(Math.log2(0.5 / MID_GREY), 10);
+	});
+
+	it('splits the subject box from the rest of the frame', () => {
+		const width = 60;
+		const height = 40;
+		const { x0, y0, x1, y1 } = toPixelBounds(BOX, width, height);
+		const inside = (x: number, y: number) => x >= x0 && x < x1 && y >= y0 && y < y1;
+		const m = measurePixels(image(width, height, (x, y) => (inside(x, y) ? [200, 200, 200] : [50, 50, 50])), BOX);
+		expect(m.subject.pixelCount).toBe((x1 - x0) * (y1 - y0));
+		expect(m.background.pixelCount).toBe(width * height - (x1 - x0) * (y1 - y0));
+		expect(m.subject.luminance).toBeCloseTo(culoriY([200, 200, 200]), 10);
+		expect(m.background.luminance).toBeCloseTo(culoriY([50, 50, 50]), 10);
+		expect(m.subject.stops - m.background.stops).toBeCloseTo(Math.log2(culoriY([200, 200, 200]) / culoriY([50, 50, 50])), 10);
+	});
+
+	it('counts a luma histogram over every pixel', () => {
+		const grey = measurePixels(uniform([118, 118, 118], 20, 10), BOX);
+		expect(grey.histogram.reduce((a, b) => a + b, 0)).toBe(200);
+		expect(grey.histogram[118]).toBe(200);
+		// BT.709 luma of pure red: 0.2126 × 255 = 54.2
+		expect(measurePixels(uniform([255, 0, 0], 20, 10), BOX).histogram[54]).toBe(200);
+		expect(measurePixels(uniform([255, 255, 255], 20, 10), BOX).histogram[255]).toBe(200);
+	});
+
+	it('reports blown highlights (any channel at the top) and blocked shadows (all channels at the bottom) in percent', () => {
+		// columns 0–9 white, 10–14 pure red, 15–19 black, the rest mid-grey, in a 40-wide frame
+		const m = measurePixels(
+			image(40, 10, (x) => (x < 10 ? [255, 255, 255] : x < 15 ? [255, 0, 0] : x < 20 ? [0, 0, 0] : [118, 118, 118])),
+			BOX
+		);
+		expect(m.clippedHighlights).toBeCloseTo(37.5, 10);
+		expect(m.clippedShadows).toBeCloseTo(12.5, 10);
+	});
+
+	it('gives a neutral region the colour temperature of D65, about 6504 K', () => {
+		// CIE 015:2004: D65 has a correlated colour temperature of about 6504 K; sRGB white is D65 (IEC 61966-2-1)
+		const m = measurePixels(uniform([180, 180, 180]), BOX);
+		expect(m.subject.cct).toBeGreaterThan(6480);
+		expect(m.subject.cct).toBeLessThan(6530);
+	});
+
+	it('gives no colour temperature for a region too dark to have a colour', () => {
+		const m = measurePixels(uniform([4, 2, 9]), BOX);
+		expect(m.subject.cct).toBeNull();
+		expect(Number.isFinite(m.subject.stops)).toBe(true);
+	});
+});
+
+describe('stopsFromMidGrey', () => {
+	it('counts stops from 18 % grey and floors black at the darkest 8-bit level', () => {
+		expect(stopsFromMidGrey(0.36)).toBeCloseTo(1, 12);
+		expect(stopsFromMidGrey(0.045)).toBeCloseTo(-2, 12);
+		expect(stopsFromMidGrey(0)).toBe(stopsFromMidGrey(1e-9));
+		expect(stopsFromMidGrey(0)).toBeGreaterThan(-10);
+	});
+});

@@ -1,0 +1,202 @@
+import { describe, expect, it } from 'vitest';
+import { deflateSync } from 'node:zlib';
+import sharp from 'sharp';
+import { FrameReadError } from './errors';
+import { readFrame, tryReadFrame } from './read-frame';
+import { makeFrame, REFERENCE_EXIF } from './test-frames';
+
+const MB = 1024 * 1024;
+
+async function rejection(promise: Promise<unknown>): Promise<FrameReadError> {
+	try {
+		await promise;
+	} catch (error) {
+		expect(error).toBeInstanceOf(FrameReadError);
+		return error as FrameReadError;
+	}
+	throw new Error('expected a FrameReadError, but the read succeeded');
+}
+
+// PNG chunk with its CRC-32 (ISO/IEC 15948 / PNG spec, polynomial 0xEDB88320)
+function pngChunk(type: string, data: Buffer): Buffer {
+	let crc = 0xffffffff;
+	for (const byte of Buffer.concat([Buffer.from(type, 'latin1'), data])) {
+		crc ^= byte;
+		for (let k = 0; k < 8; k++) crc = crc & 1 ? 0xedb88320 ^ (crc >>> 1) : crc >>> 1;
+	}
+	const out = Buffer.alloc(12 + data.length);
+	out.writeUInt32BE(data.length, 0);
+	out.write(type, 4, 'latin1');
+	data.copy(out, 8);
+	out.writeUInt32BE((crc ^ 0xffffffff) >>> 0, 8 + data.length);
+	return out;
+}
+
+function pngDeclaring(width: number, height: number): Buffer {
+	const ihdr = Buffer.alloc(13);
+	ihdr.writeUInt32BE(width, 0);
+	ihdr.writeUInt32BE(height, 4);
+	ihdr[8] = 8; // bit depth
+	ihdr[9] = 2; // truecolour
+	const signature = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+	return Buffer.concat([signature, pngChunk('IHDR', ihdr), pngChunk('IDAT', deflateSync(Buffer.alloc(64))), pngChunk('IEND', Buffer.alloc(0))]);
+}
+
+// deterministic noise, so JPEG data has real entropy to truncate
+function noiseJpeg(width: number, height: number): Promise<Buffer> {
+	const data = Buffer.alloc(width * height * 3);
+	let seed = 12345;
+	for (let i = 0; i < data.length; i++) {
+		seed = (seed * 1103515245 + 12345) >>> 0;
+		data[i] = seed >>> 24;
+	}
+	return sharp(data, { raw: { width, height, channels: 3 } }).jpeg({ quality: 90 }).withExif({ IFD2: { ExposureTime: '1/500' } }).toBuffer();
+}
+
+describe('readFrame', () => {
+	it('measures the subject and background levels a frame was made with', async () => {
+		const bytes = await makeFrame({ subject: { stops: 0 }, background: { stops: -2 }, exif: REFERENCE_EXIF });
+		const frame = await readFrame(bytes);
+		expect(frame.file).toEqual({ kind: 'jpeg', label: 'JPEG', bytes: bytes.length });
+		expect(frame.pixels?.subject.stops).toBeCloseTo(0, 1);
+		expect(frame.pixels?.background.stops).toBeCloseTo(-2, 1);
+		expect(frame.pixels).toMatchObject({ width: 600, height: 400, analysisWidth: 600, analysisHeight: 400 });
+		expect(frame.exif).toMatchObject({ found: true, exposureTime: 1 / 500, fNumber: 8, iso: 100, exposureBias: 0 });
+		expect(frame.notes).toEqual([]);
+	});
+
+	it('measures a subject box given in fractions of the frame', async () => {
+		const box = { x: 0.05, y: 0.5, w: 0.3, h: 0.4 };
+		const bytes = await makeFrame({ subject: { stops: 1 }, background: { stops: -1 }, box });
+		const inBox = await readFrame(bytes, { subject: box });
+		expect(inBox.pixels?.subject.stops).toBeCloseTo(1, 1);
+		expect(inBox.pixels?.background.stops).toBeCloseTo(-1, 1);
+		// the default centred box misses this subject, so it reads background there
+		const centred = await readFrame(bytes);
+		expect(centred.pixels?.subject.stops).toBeLessThan(0);
+	});
+
+	it('applies the Exif orientation before placing the box', async () => {
+		const box = { x: 0.1, y: 0.1, w: 0.3, h: 0.2 };
+		const bytes = await makeFrame({ subject: { stops: 1 }, background: { stops: -2 }, box, orientation: 6, exif: REFERENCE_EXIF });
+		const frame = await readFrame(bytes, { subject: box });
+		expect(frame.pixels).toMatchObject({ width: 600, height: 400 });
+		expect(frame.pixels?.subject.stops).toBeCloseTo(1, 1);
+		expect(frame.pixels?.background.stops).toBeCloseTo(-2, 1);
+	});
+
+	it('shrinks large frames to the analysis size on load and reports the full size', async () => {
+		const bytes = await makeFrame({ width: 3000, height: 2000, subject: { stops: 0 }, background: { stops: -1 } });
+		const frame = await readFrame(bytes);
+		expect(frame.pixels).toMatchObject({ width: 3000, height: 2000 });
+		expect(Math.max(frame.pixels!.analysisWidth, frame.pixels!.analysisHeight)).toBeLessThanOrEqual(1024);
+		expect(frame.pixels?.background.stops).toBeCloseTo(-1, 1);
+	});
+
+	it('reads PNG and WebP too', async () => {
+		for (const format of ['png', 'webp'] as const) {
+			const frame = await readFrame(await makeFrame({ subject: { stops: 0 }, background: { stops: -1 }, format, exif: { ...REFERENCE_EXIF, iso: 200 } }));
+			expect(frame.file.kind).toBe(format);
+			expect(frame.exif.iso, format).toBe(200);
+			expect(frame.pixels?.background.stops, format).toBeCloseTo(-1, 1);
+		}
+	});
+
+	it('reads a file without Exif: every setting null, pixels measured, a note saying so', async () => {
+		const frame = await readFrame(await makeFrame({ subject: { stops: 0 }, background: { stops: 0 } }));
+		expect(frame.exif.found).toBe(false);
+		expect(frame.exif.exposureTime).toBeNull();
+		expect(frame.exif.flash).toBeNull();
+		expect(frame.pixels).not.toBeNull();
+		expect(frame.notes.join(' ')).toMatch(/no camera settings/);
+	});
+
+	it('refuses a truncated JPEG with a typed error a person can read', async () => {
+		const whole = await noiseJpeg(400, 300);
+		const error = await rejection(readFrame(whole.subarray(0, Math.floor(whole.length * 0.6))));
+		expect(error.code).toBe('malformed');
+		expect(error.message).toMatch(/damaged or incomplete/);
+	});
+
+	it('refuses random bytes named .jpg, a JPEG header followed by garbage, and an empty file', async () => {
+		const random = Buffer.alloc(4096);
+		for (let i = 0; i < random.length; i++) random[i] = (i * 131 + 7) % 256;
+		expect((await rejection(readFrame(random))).code).toBe('unsupported-type');
+		const fakeJpeg = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), random]);
+		expect((await rejection(readFrame(fakeJpeg))).code).toBe('malformed');
+		expect((await rejection(readFrame(new Uint8Array(0)))).code).toBe('empty');
+	});
+
+	it('refuses a PNG whose header declares 100000 × 100000 pixels without decoding it', async () => {
+		const error = await rejection(readFrame(pngDeclaring(100_000, 100_000)));
+		expect(error.code).toBe('too-many-pixels');
+		expect(error.message).toMatch(/megapixels/);
+	});
+
+	it('refuses files over the size limit, which callers can set', async () => {
+		const bytes = await makeFrame({ subject: { stops: 0 }, background: { stops: 0 } });
+		const error = await rejection(readFrame(bytes, { limits: { maxBytes: 1000 } }));
+		expect(error.code).toBe('too-large');
+		const big = Buffer.concat([bytes, Buffer.alloc(41 * MB)]);
+		expect((await rejection(readFrame(big))).code).toBe('too-large');
+	});
+
+	it('honours a smaller pixel limit', async () => {
+		const bytes = await makeFrame({ subject: { stops: 0 }, background: { stops: 0 } });
+		expect((await rejection(readFrame(bytes, { limits: { maxPixels: 100_000 } }))).code).toBe('too-many-pixels');
+	});
+
+	it('refuses a subject box outside the frame', async () => {
+		const bytes = await makeFrame({ subject: { stops: 0 }, background: { stops: 0 } });
+		const error = await rejection(readFrame(bytes, { subject: { x: 0.8, y: 0.1, w: 0.5, h: 0.2 } }));
+		expect(error.code).toBe('invalid-region');
+	});
+
+	it('reads only the settings of a camera RAW file, with a note that pixels were not measured', async () => {
+		// A TIFF whose first directory says CFA (PhotometricInterpretation 32803, TIFF/EP and DNG): how RAW files look
+		const carrier = await sharp({ create: { width: 16, height: 16, channels: 3, background: '#777' } })
+			.jpeg()
+			.withExif({ IFD0: { Make: 'Example', PhotometricInterpretation: '32803' }, IFD2: { ExposureTime: '1/250', FNumber: '56/10', ISOSpeedRatings: '400' } })
+			.toBuffer();
+		const { exif } = await sharp(carrier).metadata();
+		const raw = exif!.subarray(6); // the TIFF structure after "Exif\0\0"
+		const frame = await readFrame(raw);
+		expect(frame.file.kind).toBe('raw');
+		expect(frame.pixels).toBeNull();
+		expect(frame.exif).toMatchObject({ exposureTime: 1 / 250, fNumber: 5.6, iso: 400 });
+		expect(frame.notes[0]).toMatch(/Pixels were not measured/);
+	});
+
+	it('reads only the settings of a HEIC file, with a note that pixels were not measured', async () => {
+		// sharp's bundled libheif decodes AV1 but not HEVC; an HEIF container branded 'heic' stands in for a phone's file
+		const avif = await sharp({ create: { width: 32, height: 32, channels: 3, background: '#777' } })
+			.avif()
+			.withExif({ IFD0: { Make: 'Example' }, IFD2: { ExposureTime: '1/1000', FNumber: '4/1', ISOSpeedRatings: '64' } })
+			.toBuffer();
+		const heic = Buffer.from(avif);
+		heic.write('heic', 8, 'latin1');
+		heic.write('heic', heic.indexOf('avif', 12, 'latin1'), 'latin1');
+		const frame = await readFrame(heic);
+		expect(frame.file.kind).toBe('heic');
+		expect(frame.pixels).toBeNull();
+		expect(frame.exif).toMatchObject({ exposureTime: 1 / 1000, fNumber: 4, iso: 64, make: 'Example' });
+		expect(frame.notes[0]).toMatch(/Pixels were not measured: HEIC/);
+	});
+
+	it('refuses a HEIC container it can neither decode nor read settings from', async () => {
+		const heic = Buffer.concat([Buffer.from([0, 0, 0, 24]), Buffer.from('ftypheic\0\0\0\0mif1heic', 'latin1'), Buffer.alloc(200, 7)]);
+		const error = await rejection(readFrame(heic));
+		expect(error.code).toBe('not-decodable');
+		expect(error.message).toMatch(/HEIC/);
+	});
+});
+
+describe('tryReadFrame', () => {
+	it('returns bad files as values, never throwing', async () => {
+		const bad = await tryReadFrame(Buffer.from('definitely not a photo'));
+		expect(bad.ok).toBe(false);
+		if (!bad.ok) expect(bad.error.code).toBe('unsupported-type');
+		const good = await tryReadFrame(await makeFrame({ subject: { stops: 0 }, background: { stops: 0 } }));
+		expect(good.ok).toBe(true);
+	});
+});

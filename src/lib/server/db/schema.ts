@@ -1,0 +1,423 @@
+// Drizzle schema: camelCase keys over snake_case columns; row types exported beside each table.
+import { sql } from 'drizzle-orm';
+import {
+	boolean,
+	index,
+	integer,
+	jsonb,
+	primaryKey,
+	real,
+	pgTable,
+	serial,
+	text,
+	timestamp,
+	uniqueIndex
+} from 'drizzle-orm/pg-core';
+
+// one list for server and browser: pages cannot import this server module
+import { roles, type Role } from '../../roles';
+export { roles, type Role };
+
+export const users = pgTable('users', {
+	id: text('id').primaryKey(),
+	email: text('email').notNull().unique(),
+	name: text('name').notNull(),
+	passwordHash: text('password_hash'),
+	emailVerified: boolean('email_verified').notNull().default(false),
+	roles: text('roles').array().$type<Role[]>().notNull().default(sql`'{learner}'::text[]`),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+export type User = typeof users.$inferSelect;
+
+export const sessions = pgTable(
+	'sessions',
+	{
+		id: text('id').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		expiresAt: timestamp('expires_at', { withTimezone: true, mode: 'date' }).notNull()
+	},
+	(t) => [index('sessions_user_idx').on(t.userId)]
+);
+export type Session = typeof sessions.$inferSelect;
+
+export const courses = pgTable('courses', {
+	id: serial('id').primaryKey(),
+	slug: text('slug').notNull().unique(),
+	title: text('title').notNull(),
+	summary: text('summary').notNull(),
+	instructor: text('instructor').notNull(),
+	priceCents: integer('price_cents').notNull().default(0),
+	currency: text('currency').notNull().default('usd'),
+	published: boolean('published').notNull().default(true),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+export type Course = typeof courses.$inferSelect;
+
+export const modules = pgTable(
+	'modules',
+	{
+		id: serial('id').primaryKey(),
+		courseId: integer('course_id')
+			.notNull()
+			.references(() => courses.id, { onDelete: 'cascade' }),
+		slug: text('slug').notNull(),
+		title: text('title').notNull(),
+		summary: text('summary').notNull().default(''),
+		position: integer('position').notNull()
+	},
+	(t) => [uniqueIndex('modules_course_slug_idx').on(t.courseId, t.slug)]
+);
+export type Module = typeof modules.$inferSelect;
+
+/** A lesson's body lives either in a `content/` file (source 'file') or in the database ('db'). */
+export const lessons = pgTable(
+	'lessons',
+	{
+		id: serial('id').primaryKey(),
+		moduleId: integer('module_id')
+			.notNull()
+			.references(() => modules.id, { onDelete: 'cascade' }),
+		slug: text('slug').notNull(),
+		title: text('title').notNull(),
+		summary: text('summary').notNull().default(''),
+		position: integer('position').notNull(),
+		freePreview: boolean('free_preview').notNull().default(false),
+		minutes: integer('minutes').notNull().default(10),
+		source: text('source', { enum: ['file', 'db'] }).notNull().default('file'),
+		contentPath: text('content_path'),
+		body: text('body'),
+		published: boolean('published').notNull().default(true),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [uniqueIndex('lessons_module_slug_idx').on(t.moduleId, t.slug)]
+);
+export type Lesson = typeof lessons.$inferSelect;
+
+export const assignments = pgTable(
+	'assignments',
+	{
+		id: serial('id').primaryKey(),
+		lessonId: integer('lesson_id')
+			.notNull()
+			.references(() => lessons.id, { onDelete: 'cascade' }),
+		slug: text('slug').notNull().unique(),
+		title: text('title').notNull(),
+		brief: text('brief').notNull(),
+		spec: jsonb('spec').notNull(),
+		position: integer('position').notNull().default(0)
+	},
+	(t) => [index('assignments_lesson_idx').on(t.lessonId)]
+);
+export type Assignment = typeof assignments.$inferSelect;
+
+// ---- accounts (issue 5): one-time links, sign-in throttling, role audit ----
+
+export const tokenPurposes = ['verify_email', 'reset_password', 'change_email'] as const;
+export type TokenPurpose = (typeof tokenPurposes)[number];
+
+/** One-time links sent by e-mail; only the SHA-256 of the token is stored. */
+export const authTokens = pgTable(
+	'auth_tokens',
+	{
+		tokenHash: text('token_hash').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		purpose: text('purpose', { enum: tokenPurposes }).notNull(),
+		/** the address the link was sent to (for change_email: the new address) */
+		email: text('email').notNull(),
+		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+		usedAt: timestamp('used_at', { withTimezone: true }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('auth_tokens_user_idx').on(t.userId, t.purpose)]
+);
+export type AuthToken = typeof authTokens.$inferSelect;
+
+/** Failed sign-ins per key ('account:<email>' or 'address:<ip>'), shared by every app process. */
+export const signInThrottle = pgTable('sign_in_throttle', {
+	key: text('key').primaryKey(),
+	failures: integer('failures').notNull().default(0),
+	lastFailureAt: timestamp('last_failure_at', { withTimezone: true }).notNull().defaultNow(),
+	lockedUntil: timestamp('locked_until', { withTimezone: true })
+});
+export type SignInThrottle = typeof signInThrottle.$inferSelect;
+
+/** Every change of a person's roles: who changed whose roles, from what to what, and when. */
+export const roleAudit = pgTable(
+	'role_audit',
+	{
+		id: serial('id').primaryKey(),
+		targetUserId: text('target_user_id').references(() => users.id, { onDelete: 'set null' }),
+		targetEmail: text('target_email').notNull(),
+		actorUserId: text('actor_user_id').references(() => users.id, { onDelete: 'set null' }),
+		actorEmail: text('actor_email').notNull(),
+		rolesBefore: text('roles_before').array().$type<Role[]>().notNull(),
+		rolesAfter: text('roles_after').array().$type<Role[]>().notNull(),
+		changedAt: timestamp('changed_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('role_audit_changed_idx').on(t.changedAt), index('role_audit_target_idx').on(t.targetUserId)]
+);
+export type RoleAuditEntry = typeof roleAudit.$inferSelect;
+// ---- end accounts ----
+
+// ---- learning (issue 6): authored lesson versions, images, quiz answers, progress ----
+
+/** Every saved state of a lesson written in the browser; a lesson's published body is one of these. */
+export const lessonVersions = pgTable(
+	'lesson_versions',
+	{
+		id: serial('id').primaryKey(),
+		lessonId: integer('lesson_id')
+			.notNull()
+			.references(() => lessons.id, { onDelete: 'cascade' }),
+		title: text('title').notNull(),
+		summary: text('summary').notNull().default(''),
+		body: text('body').notNull(),
+		authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+		note: text('note').notNull().default(''),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('lesson_versions_lesson_idx').on(t.lessonId, t.createdAt)]
+);
+export type LessonVersion = typeof lessonVersions.$inferSelect;
+
+/** Images authors upload for lessons, stored as WebP. */
+export const lessonImages = pgTable('lesson_images', {
+	id: text('id').primaryKey(),
+	authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+	storageKey: text('storage_key').notNull(),
+	width: integer('width').notNull(),
+	height: integer('height').notNull(),
+	alt: text('alt').notNull().default(''),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+export type LessonImage = typeof lessonImages.$inferSelect;
+
+export const quizAnswers = pgTable(
+	'quiz_answers',
+	{
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		lessonId: integer('lesson_id')
+			.notNull()
+			.references(() => lessons.id, { onDelete: 'cascade' }),
+		quizId: text('quiz_id').notNull(),
+		answer: text('answer').notNull(),
+		correct: boolean('correct').notNull(),
+		answeredAt: timestamp('answered_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [primaryKey({ columns: [t.userId, t.lessonId, t.quizId] })]
+);
+export type QuizAnswer = typeof quizAnswers.$inferSelect;
+
+/** One row per learner and lesson opened: when last visited, and when marked complete. */
+export const lessonProgress = pgTable(
+	'lesson_progress',
+	{
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		lessonId: integer('lesson_id')
+			.notNull()
+			.references(() => lessons.id, { onDelete: 'cascade' }),
+		lastVisitedAt: timestamp('last_visited_at', { withTimezone: true }).notNull().defaultNow(),
+		completedAt: timestamp('completed_at', { withTimezone: true })
+	},
+	(t) => [primaryKey({ columns: [t.userId, t.lessonId] }), index('lesson_progress_recent_idx').on(t.userId, t.lastVisitedAt)]
+);
+export type LessonProgress = typeof lessonProgress.$inferSelect;
+// ---- end learning ----
+
+// ---- attempts (issue 7): uploads, grading, the review queue, critique ----
+
+export const attemptStatuses = ['queued', 'grading', 'graded', 'error'] as const;
+export type AttemptStatus = (typeof attemptStatuses)[number];
+export const verdicts = ['pass', 'fail', 'needs-review'] as const;
+export type AttemptVerdict = (typeof verdicts)[number];
+
+export const attempts = pgTable(
+	'attempts',
+	{
+		id: text('id').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		assignmentId: integer('assignment_id')
+			.notNull()
+			.references(() => assignments.id, { onDelete: 'cascade' }),
+		/** sent by the upload form; a double-clicked submit carries the same key and finds the same attempt */
+		submissionKey: text('submission_key').notNull(),
+		status: text('status', { enum: attemptStatuses }).notNull().default('queued'),
+		/** the grader's verdict */
+		autoVerdict: text('auto_verdict', { enum: verdicts }),
+		/** what the learner sees: the grader's verdict, or a mentor's override */
+		verdict: text('verdict', { enum: verdicts }),
+		/** the spec graded against (assignments change; attempts keep what they were graded by) */
+		spec: jsonb('spec').notNull(),
+		subjectBox: jsonb('subject_box').$type<{ x: number; y: number; w: number; h: number }>().notNull(),
+		lightPlan: jsonb('light_plan'),
+		/** criteria results from grade() */
+		result: jsonb('result'),
+		error: text('error'),
+		gradeRuns: integer('grade_runs').notNull().default(0),
+		/** 'open' until a mentor has written a critique */
+		reviewState: text('review_state', { enum: ['open', 'reviewed'] }).notNull().default('open'),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		gradedAt: timestamp('graded_at', { withTimezone: true }),
+		reviewedAt: timestamp('reviewed_at', { withTimezone: true })
+	},
+	(t) => [
+		uniqueIndex('attempts_submission_idx').on(t.userId, t.submissionKey),
+		index('attempts_user_assignment_idx').on(t.userId, t.assignmentId, t.createdAt),
+		index('attempts_queue_idx').on(t.reviewState, t.verdict, t.createdAt)
+	]
+);
+export type Attempt = typeof attempts.$inferSelect;
+
+export const attemptFrames = pgTable(
+	'attempt_frames',
+	{
+		id: serial('id').primaryKey(),
+		attemptId: text('attempt_id')
+			.notNull()
+			.references(() => attempts.id, { onDelete: 'cascade' }),
+		name: text('name').notNull(),
+		originalKey: text('original_key').notNull(),
+		largeKey: text('large_key').notNull(),
+		thumbKey: text('thumb_key').notNull(),
+		mime: text('mime').notNull(),
+		bytes: integer('bytes').notNull(),
+		width: integer('width'),
+		height: integer('height'),
+		/** the frame as read (EXIF and pixel analysis) */
+		analysis: jsonb('analysis')
+	},
+	(t) => [uniqueIndex('attempt_frames_name_idx').on(t.attemptId, t.name)]
+);
+export type AttemptFrame = typeof attemptFrames.$inferSelect;
+
+export const critiques = pgTable('critiques', {
+	attemptId: text('attempt_id')
+		.primaryKey()
+		.references(() => attempts.id, { onDelete: 'cascade' }),
+	mentorId: text('mentor_id').references(() => users.id, { onDelete: 'set null' }),
+	text: text('text').notNull().default(''),
+	/** rubric item id → score */
+	rubric: jsonb('rubric').$type<Record<string, number>>().notNull().default({}),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+	updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+});
+export type Critique = typeof critiques.$inferSelect;
+
+/** Numbered comments pinned on a frame, at fractions 0–1 of its width and height. */
+export const pins = pgTable(
+	'pins',
+	{
+		id: serial('id').primaryKey(),
+		attemptId: text('attempt_id')
+			.notNull()
+			.references(() => attempts.id, { onDelete: 'cascade' }),
+		frameName: text('frame_name').notNull(),
+		number: integer('number').notNull(),
+		x: real('x').notNull(),
+		y: real('y').notNull(),
+		text: text('text').notNull(),
+		mentorId: text('mentor_id').references(() => users.id, { onDelete: 'set null' }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [uniqueIndex('pins_number_idx').on(t.attemptId, t.number)]
+);
+export type Pin = typeof pins.$inferSelect;
+
+/** A mentor's override of the automatic verdict, with the reason: the audit trail. */
+export const verdictOverrides = pgTable(
+	'verdict_overrides',
+	{
+		id: serial('id').primaryKey(),
+		attemptId: text('attempt_id')
+			.notNull()
+			.references(() => attempts.id, { onDelete: 'cascade' }),
+		mentorId: text('mentor_id').references(() => users.id, { onDelete: 'set null' }),
+		mentorEmail: text('mentor_email').notNull(),
+		verdictBefore: text('verdict_before', { enum: verdicts }),
+		verdictAfter: text('verdict_after', { enum: verdicts }).notNull(),
+		reason: text('reason').notNull(),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('verdict_overrides_attempt_idx').on(t.attemptId)]
+);
+export type VerdictOverride = typeof verdictOverrides.$inferSelect;
+// ---- end attempts ----
+
+// ---- enrolment (issue 8): payments, webhook events, enrolments, coupons ----
+
+export const enrolments = pgTable(
+	'enrolments',
+	{
+		id: serial('id').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		courseId: integer('course_id')
+			.notNull()
+			.references(() => courses.id, { onDelete: 'cascade' }),
+		status: text('status', { enum: ['active', 'revoked'] }).notNull().default('active'),
+		source: text('source', { enum: ['payment', 'admin', 'free'] }).notNull(),
+		paymentId: integer('payment_id'),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		revokedAt: timestamp('revoked_at', { withTimezone: true })
+	},
+	(t) => [uniqueIndex('enrolments_user_course_idx').on(t.userId, t.courseId)]
+);
+export type Enrolment = typeof enrolments.$inferSelect;
+
+export const paymentStatuses = ['pending', 'paid', 'refunded', 'cancelled'] as const;
+export type PaymentStatus = (typeof paymentStatuses)[number];
+
+export const payments = pgTable(
+	'payments',
+	{
+		id: serial('id').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		courseId: integer('course_id')
+			.notNull()
+			.references(() => courses.id, { onDelete: 'cascade' }),
+		checkoutSessionId: text('checkout_session_id').notNull().unique(),
+		paymentIntentId: text('payment_intent_id'),
+		amountCents: integer('amount_cents').notNull(),
+		refundedCents: integer('refunded_cents').notNull().default(0),
+		currency: text('currency').notNull(),
+		couponCode: text('coupon_code'),
+		status: text('status', { enum: paymentStatuses }).notNull().default('pending'),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		paidAt: timestamp('paid_at', { withTimezone: true }),
+		refundedAt: timestamp('refunded_at', { withTimezone: true })
+	},
+	(t) => [index('payments_user_idx').on(t.userId), index('payments_intent_idx').on(t.paymentIntentId)]
+);
+export type Payment = typeof payments.$inferSelect;
+
+/** Each webhook event once, by its id: replays find the row and change nothing. */
+export const webhookEvents = pgTable('webhook_events', {
+	id: text('id').primaryKey(),
+	type: text('type').notNull(),
+	payload: jsonb('payload').notNull(),
+	receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
+	processedAt: timestamp('processed_at', { withTimezone: true })
+});
+export type WebhookEvent = typeof webhookEvents.$inferSelect;
+
+export const coupons = pgTable('coupons', {
+	code: text('code').primaryKey(),
+	percentOff: integer('percent_off').notNull(),
+	active: boolean('active').notNull().default(true),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+export type Coupon = typeof coupons.$inferSelect;
+// ---- end enrolment ----

@@ -1,0 +1,19 @@
+// Grading an Attempt against an Assignment spec. Server only; no database (callers store the result).
+export { grade, overallVerdict, type GradeResult, type Verdict } from './grade';
+export { describeCriterion } from './describe';
+export {
+	assignmentSpecSchema,
+	criterionSchema,
+	CRITERION_KINDS,
+	validateSpec,
+	parseSpecText,
+	resolveFrames,
+	type AssignmentSpec,
+	type AssignmentSpecInput,
+	type Criterion,
+	type CriterionInput,
+	type CriterionKind,
+	type SpecResult
+} from './spec';
+export { formatSpecErrors, SpecValidationError, type SpecError } from './spec-errors';
+export type { CriterionResult, CriterionVerdict, Comparison, Unit } from './result';

@@ -1,0 +1,100 @@
+// The shape of a criterion's verdict, and the lookups every criterion shares (frames, Exif fields, pixels).
+import type { ExifField, Frame, PixelReport } from '../analysis/index';
+import { EXIF_TAG_NAMES } from '../analysis/index';
+import type { AssignmentSpec, CriterionKind } from './spec';
+
+export type CriterionVerdict = 'pass' | 'fail' | 'unknown';
+export type Unit = 'stops' | 'EV' | 's' | 'f-number' | 'ISO' | 'mm' | 'mired' | 'flash';
+/** How `measured` is compared with `target`: within ± tolerance, at least, at most, or between [min, max]. */
+export type Comparison = 'within' | 'at-least' | 'at-most' | 'between';
+
+export interface CriterionResult {
+	kind: CriterionKind;
+	verdict: CriterionVerdict;
+	measured: number | number[] | null;
+	target: number | number[] | null;
+	tolerance: number | null;
+	unit: Unit;
+	comparison: Comparison;
+	/** For the learner: what was found and, when it falls short, what to change. */
+	message: string;
+	/** Exif tags (CIPA DC-008 names) that were missing when that made the verdict unknown. */
+	missing: string[];
+	/** Frames this criterion looked at. */
+	frames: string[];
+}
+
+export interface GradeContext {
+	spec: AssignmentSpec;
+	frames: Readonly<Record<string, Frame | undefined>>;
+}
+
+/** Fields every result of one criterion shares; the evaluator adds verdict, measured and message. */
+export type ResultBase = Omit<CriterionResult, 'verdict' | 'measured' | 'message' | 'missing'>;
+
+export function passOrFail(ok: boolean): CriterionVerdict {
+	return ok ? 'pass' : 'fail';
+}
+
+/** 'the “lit” frame' */
+export function frameWords(name: string): string {
+	return `the “${name}” frame`;
+}
+
+/** Either the frame, or an 'unknown' result saying it was not uploaded. */
+export function lookupFrame(ctx: GradeContext, name: string, base: ResultBase): Frame | CriterionResult {
+	const frame = ctx.frames[name];
+	if (frame) return frame;
+	return {
+		...base,
+		verdict: 'unknown',
+		measured: null,
+		missing: [],
+		message: `${capitalise(frameWords(name))} is missing from this Attempt, so this could not be checked.`
+	};
+}
+
+/** Tells a lookup's 'unknown' result apart from the value it looked up. */
+export function isResult<T extends object>(value: T | CriterionResult): value is CriterionResult {
+	return 'verdict' in value && 'kind' in value;
+}
+
+type ExifValues<F extends ExifField> = { [K in F]: NonNullable<Frame['exif'][K]> };
+
+/** The named Exif fields of a frame, or an 'unknown' result naming each missing tag. */
+export function requireExif<F extends ExifField>(
+	frame: Frame,
+	name: string,
+	fields: readonly F[],
+	base: ResultBase
+): ExifValues<F> | CriterionResult {
+	const absent = fields.filter((f) => frame.exif[f] === null);
+	if (absent.length === 0) {
+		return Object.fromEntries(fields.map((f) => [f, frame.exif[f]])) as ExifValues<F>;
+	}
+	const tags = absent.map((f) => EXIF_TAG_NAMES[f]);
+	const list = tags.length === 1 ? `${tags[0]} tag` : `${tags.slice(0, -1).join(', ')} or ${tags[tags.length - 1]} tags`;
+	return {
+		...base,
+		verdict: 'unknown',
+		measured: null,
+		missing: tags,
+		message: `${capitalise(frameWords(name))} has no ${list} in its Exif${frame.exif.found ? '' : ' (the file carries no camera settings at all)'}, so this cannot be checked from the file; a mentor will look at it.`
+	};
+}
+
+/** The frame's pixel measures, or an 'unknown' result saying why they are absent. */
+export function requirePixels(frame: Frame, name: string, base: ResultBase): PixelReport | CriterionResult {
+	if (frame.pixels) return frame.pixels;
+	return {
+		...base,
+		verdict: 'unknown',
+		measured: null,
+		missing: [],
+		message: `The pixels of ${frameWords(name)} were not measured (${frame.file.label} files cannot be decoded here), so a mentor will judge this by eye.`
+	};
+}
+
+export function capitalise(text: string): string {
+	return text.charAt(0).toUpperCase() + text.slice(1);
+}

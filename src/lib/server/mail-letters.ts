@@ -1,0 +1,73 @@
+// The wording of every e-mail Stopwise sends, as plain text and matching HTML.
+import type { Letter } from './mail';
+
+function escapeHtml(s: string): string {
+	return s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+}
+
+/** Paragraphs become the text part; the same paragraphs, escaped, with the link as a button, the HTML part. */
+function compose(to: string, subject: string, paragraphs: string[], link?: { href: string; label: string }): Letter {
+	const text = [...paragraphs, ...(link ? [`${link.label}: ${link.href}`] : []), '— Stopwise'].join('\n\n');
+	const body = paragraphs.map((p) => `<p style="margin:0 0 14px">${escapeHtml(p)}</p>`).join('');
+	const button = link
+		? `<p style="margin:20px 0"><a href="${escapeHtml(link.href)}" style="background:#f0a040;color:#141518;padding:10px 16px;border-radius:6px;text-decoration:none;font-weight:600">${escapeHtml(link.label)}</a></p>` +
+			`<p style="margin:0 0 14px;font-size:13px;color:#555">Or paste this address into your browser: ${escapeHtml(link.href)}</p>`
+		: '';
+	const html = `<!doctype html><html><body style="font-family:system-ui,sans-serif;color:#1b1d21;max-width:560px">${body}${button}<p style="color:#555">— Stopwise</p></body></html>`;
+	return { to, subject, text, html };
+}
+
+export function verifyEmailLetter(to: string, name: string, href: string, hours: number): Letter {
+	return compose(
+		to,
+		'Confirm your e-mail address for Stopwise',
+		[
+			`Hello ${name},`,
+			`Please confirm that this address is yours, so we can send you course news, receipts and password links. The link works once and for ${hours} hours.`,
+			'If you did not sign up for Stopwise, ignore this message and nothing will happen.'
+		],
+		{ href, label: 'Confirm my address' }
+	);
+}
+
+export function resetPasswordLetter(to: string, name: string, href: string, minutes: number): Letter {
+	return compose(
+		to,
+		'Choose a new Stopwise password',
+		[
+			`Hello ${name},`,
+			`Someone (we hope you) asked to reset the password for this address. The link below works once and for ${minutes} minutes. Choosing a new password signs you out on every device.`,
+			'If you did not ask for this, ignore this message: your password stays as it is.'
+		],
+		{ href, label: 'Choose a new password' }
+	);
+}
+
+export function changeEmailLetter(to: string, name: string, href: string, hours: number): Letter {
+	return compose(
+		to,
+		'Confirm your new e-mail address for Stopwise',
+		[
+			`Hello ${name},`,
+			`You asked to use this address for your Stopwise account. Confirm it with the link below; it works once and for ${hours} hours. Until then your old address stays in use.`,
+			'If this was not you, ignore this message.'
+		],
+		{ href, label: 'Use this address' }
+	);
+}
+
+export function emailChangedNotice(to: string, name: string, newEmail: string): Letter {
+	return compose(to, 'Your Stopwise e-mail address was changed', [
+		`Hello ${name},`,
+		`Your Stopwise account now uses ${newEmail}. Mail will no longer come to this address.`,
+		'If you did not make this change, reset your password from the sign-in page and contact the school right away.'
+	]);
+}
+
+export function passwordChangedNotice(to: string, name: string): Letter {
+	return compose(to, 'Your Stopwise password was changed', [
+		`Hello ${name},`,
+		'The password of your Stopwise account was just changed, and other devices were signed out.',
+		'If you did not do this, reset your password from the sign-in page and contact the school.'
+	]);
+}

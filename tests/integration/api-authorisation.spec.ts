@@ -1,0 +1,121 @@
+// Every API route under src/routes/api, found on disk, answered for every kind of visitor.
+import { readdirSync, statSync } from 'node:fs';
+import { join, relative, resolve, sep } from 'node:path';
+import { describe, expect, test } from 'vitest';
+import { makeEvent, throughHooks } from './support/request-event';
+import { demoAccount, signedInCookies } from './support/people';
+
+type Who = 'anonymous' | 'learner' | 'mentor' | 'author' | 'admin';
+const everyone: Who[] = ['anonymous', 'learner', 'mentor', 'author', 'admin'];
+type Expectation = { path?: string; params?: Record<string, string>; status: Record<Who, number> };
+
+const open = { anonymous: 200, learner: 200, mentor: 200, author: 200, admin: 200 };
+const signedIn = { anonymous: 401, learner: 200, mentor: 200, author: 200, admin: 200 };
+const adminOnly = { anonymous: 401, learner: 403, mentor: 403, author: 403, admin: 200 };
+
+/**
+ * What each route must answer, per method. A route folder on disk without an entry here, or a
+ * method it exports without one, fails the test: a new API route cannot be left unchecked.
+ */
+const expectations: Record<string, Record<string, Expectation>> = {
+	'/api/health': { GET: { status: open } },
+	'/api/v1/me': { GET: { status: signedIn } },
+	'/api/v1/admin/people': { GET: { path: '/api/v1/admin/people?q=demo&sort=email', status: adminOnly } }
+};
+
+const apiRoot = resolve('src/routes/api');
+const methods = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'OPTIONS', 'HEAD'];
+
+function findServerRoutes(dir: string): string[] {
+	const found: string[] = [];
+	for (const name of readdirSync(dir)) {
+		const full = join(dir, name);
+		if (statSync(full).isDirectory()) found.push(...findServerRoutes(full));
+		else if (name === '+server.ts' || name === '+server.js') found.push(full);
+	}
+	return found;
+}
+
+/** `src/routes/api/v1/(x)/me/+server.ts` → `/api/v1/me` (groups do not appear in URLs). */
+function routeIdOf(file: string): string {
+	const parts = relative(apiRoot, file).split(sep).slice(0, -1).filter((p) => !/^\(.*\)$/.test(p));
+	return ['/api', ...parts].join('/');
+}
+
+const routes = findServerRoutes(apiRoot).map((file) => ({ file, id: routeIdOf(file) }));
+
+describe('API authorisation matrix', () => {
+	test('the walk finds the known routes (guards the walk itself)', () => {
+		expect(routes.map((r) => r.id)).toEqual(expect.arrayContaining(['/api/health', '/api/v1/me']));
+	});
+
+	test('every API route on disk has expectations, and every expectation has a route', () => {
+		const onDisk = routes.map((r) => r.id).sort();
+		const missing = onDisk.filter((id) => !(id in expectations));
+		expect(missing, `add expectations for: ${missing.join(', ')}`).toEqual([]);
+		expect(Object.keys(expectations).sort()).toEqual(onDisk);
+	});
+
+	for (const { file, id } of routes) {
+		test(`${id}: each exported method is listed and answers each visitor as expected`, async () => {
+			const mod: Record<string, unknown> = await import(/* @vite-ignore */ file);
+			const exported = methods.filter((m) => typeof mod[m] === 'function');
+			const listed = Object.keys(expectations[id] ?? {});
+			expect(exported.sort(), `${id}: methods exported vs. listed`).toEqual(listed.sort());
+
+			for (const method of exported) {
+				const exp = expectations[id][method];
+				for (const who of everyone) {
+					const cookies = who === 'anonymous' ? undefined : await signedInCookies(demoAccount(who).email);
+					const event = makeEvent({ method, path: exp.path ?? id, cookies, params: exp.params, routeId: id });
+					const handler = mod[method] as (e: unknown) => Response | Promise<Response>;
+					const outcome = await throughHooks(event, (e) => handler(e));
+					expect(outcome.kind, `${method} ${id} as ${who}`).toBe('value');
+					const response = (outcome as { value: Response }).value;
+					expect(response.status, `${method} ${id} as ${who}`).toBe(exp.status[who]);
+					const body = await response.clone().json();
+					if (response.status === 401) expect(body).toMatchObject({ error: 'unauthenticated' });
+					if (response.status === 403) expect(body).toMatchObject({ error: 'forbidden' });
+				}
+			}
+		});
+	}
+
+	test('GET /api/v1/me answers with the signed-in person and no secrets', async () => {
+		const { GET } = await import('../../src/routes/api/v1/me/+server');
+		const cookies = await signedInCookies(demoAccount('mentor').email);
+		const outcome = await throughHooks(makeEvent({ path: '/api/v1/me', cookies }), (e) => GET(e as never));
+		const body = await (outcome as { value: Response }).value.json();
+		expect(body).toMatchObject({ email: demoAccount('mentor').email, roles: ['learner', 'mentor'], emailVerified: true });
+		expect(JSON.stringify(body)).not.toMatch(/password|hash/i);
+	});
+
+	test('GET /api/v1/admin/people searches, sorts and pages from URL params', async () => {
+		const { GET } = await import('../../src/routes/api/v1/admin/people/+server');
+		const cookies = await signedInCookies(demoAccount('admin').email);
+		const path = '/api/v1/admin/people?q=harborlane&sort=email&dir=desc&page=1';
+		const outcome = await throughHooks(makeEvent({ path, cookies }), (e) => GET(e as never));
+		const body = await (outcome as { value: Response }).value.json();
+		const emails: string[] = body.people.map((p: { email: string }) => p.email);
+		expect(emails).toEqual(demo4Sorted().toReversed());
+		expect(body.total).toBe(4);
+		expect(JSON.stringify(body)).not.toMatch(/passwordHash/);
+	});
+
+	test('a malformed people query falls back to defaults instead of failing', async () => {
+		const { GET } = await import('../../src/routes/api/v1/admin/people/+server');
+		const cookies = await signedInCookies(demoAccount('admin').email);
+		const path = '/api/v1/admin/people?sort=drop%20table&dir=sideways&page=-3&q=%25';
+		const outcome = await throughHooks(makeEvent({ path, cookies }), (e) => GET(e as never));
+		const response = (outcome as { value: Response }).value;
+		expect(response.status).toBe(200);
+		const body = await response.json();
+		expect(body.query).toEqual({ q: '%', sort: 'name', dir: 'asc', page: 1 });
+		// '%' is searched for literally, not as a wildcard
+		expect(body.people).toEqual([]);
+	});
+});
+
+function demo4Sorted(): string[] {
+	return ['admin', 'author', 'learner', 'mentor'].map((r) => `${r}@harborlane.example`).sort();
+}

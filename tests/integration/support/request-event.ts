@@ -1,0 +1,100 @@
+// Builds SvelteKit request events for integration tests and runs them through the app's real session hook.
+import type { Cookies, RequestEvent } from '@sveltejs/kit';
+import { isHttpError, isRedirect } from '@sveltejs/kit';
+// `handle` is a sequence that needs Kit's request store; `authenticate` is the part that sets locals
+import { authenticate } from '../../../src/hooks.server';
+
+/** A cookie jar with the parts of Kit's Cookies the app uses; keeps what the server sets. */
+export type TestCookies = Cookies & { jar: Map<string, string>; options: Map<string, Record<string, unknown>> };
+
+export function makeCookies(initial: Record<string, string> = {}): TestCookies {
+	const jar = new Map(Object.entries(initial));
+	const options = new Map<string, Record<string, unknown>>();
+	const cookies = {
+		jar,
+		options,
+		get: (name: string) => jar.get(name),
+		getAll: () => [...jar].map(([name, value]) => ({ name, value })),
+		set: (name: string, value: string, opts: { maxAge?: number }) => {
+			options.set(name, { ...opts });
+			if (value === '' || opts?.maxAge === 0) jar.delete(name);
+			else jar.set(name, value);
+		},
+		delete: (name: string) => void jar.delete(name),
+		serialize: (name: string, value: string) => `${name}=${value}`
+	};
+	return cookies as unknown as TestCookies;
+}
+
+type EventInit = {
+	method?: string;
+	path: string;
+	form?: Record<string, string | string[]>;
+	cookies?: TestCookies;
+	address?: string;
+	params?: Record<string, string>;
+	routeId?: string;
+	headers?: Record<string, string>;
+};
+
+export const origin = 'http://localhost:4173';
+
+export function makeEvent(init: EventInit): RequestEvent {
+	const url = new URL(init.path, origin);
+	let body: FormData | undefined;
+	if (init.form) {
+		body = new FormData();
+		for (const [k, v] of Object.entries(init.form)) for (const one of [v].flat()) body.append(k, one);
+	}
+	const request = new Request(url, {
+		method: init.method ?? (body ? 'POST' : 'GET'),
+		body,
+		headers: { origin, ...init.headers }
+	});
+	const event = {
+		request,
+		url,
+		params: init.params ?? {},
+		route: { id: init.routeId ?? null },
+		locals: {} as App.Locals,
+		cookies: init.cookies ?? makeCookies(),
+		getClientAddress: () => init.address ?? '192.0.2.1',
+		setHeaders: () => {},
+		fetch: globalThis.fetch,
+		platform: undefined,
+		isDataRequest: false,
+		isSubRequest: false,
+		isRemoteRequest: false
+	};
+	return event as unknown as RequestEvent;
+}
+
+export type Outcome<T> =
+	| { kind: 'value'; value: T }
+	| { kind: 'redirect'; status: number; location: string }
+	| { kind: 'error'; status: number; message: string };
+
+/** Runs `fn` inside the app's session hook (so locals come from the real session code) and reports how it ended. */
+export async function throughHooks<T>(event: RequestEvent, fn: (e: RequestEvent) => T | Promise<T>): Promise<Outcome<T>> {
+	let value: T | undefined;
+	try {
+		await authenticate({
+			event,
+			resolve: async (e) => {
+				value = await fn(e);
+				return value instanceof Response ? value : new Response(null);
+			}
+		});
+		return { kind: 'value', value: value as T };
+	} catch (e) {
+		if (isRedirect(e)) return { kind: 'redirect', status: e.status, location: e.location };
+		if (isHttpError(e)) return { kind: 'error', status: e.status, message: e.body.message };
+		throw e;
+	}
+}
+
+/** An action's `fail(...)` result, unwrapped. */
+export function failureOf(value: unknown): { status: number; data: Record<string, unknown> } | null {
+	const v = value as { status?: number; data?: Record<string, unknown> } | null;
+	return v && typeof v.status === 'number' && v.data ? { status: v.status, data: v.data } : null;
+}

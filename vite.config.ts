@@ -1,0 +1,15 @@
+import { sveltekit } from '@sveltejs/kit/vite';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+	plugins: [tailwindcss(), sveltekit()],
+	test: {
+		expect: { requireAssertions: true },
+		include: ['src/**/*.spec.ts', 'tests/integration/**/*.spec.ts'],
+		// integration tests share one PostgreSQL database: run files one after another
+		fileParallelism: false,
+		testTimeout: 30_000,
+		hookTimeout: 60_000
+	}
+});
