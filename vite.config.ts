@@ -4,6 +4,8 @@ import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
+	// the timing report says only that Svelte compiling is most of the build, which it is meant to be
+	build: { rolldownOptions: { checks: { bundlerTimings: false } } },
 	test: {
 		expect: { requireAssertions: true },
 		include: ['src/**/*.spec.ts', 'tests/integration/**/*.spec.ts'],
