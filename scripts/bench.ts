@@ -1,8 +1,10 @@
 // `npm run bench`: runs each registered benchmark in turn; add a module under scripts/bench/ and list it below.
 import { gradingBench } from './bench/grading';
+import { reviewQueueBench } from './bench/review-queue';
+import { uploadToVerdictBench } from './bench/upload-to-verdict';
 import type { Bench } from './bench/timing';
 
-const BENCHES: Bench[] = [gradingBench];
+const BENCHES: Bench[] = [gradingBench, reviewQueueBench, uploadToVerdictBench];
 
 async function main(): Promise<number> {
 	let missed = 0;

@@ -162,6 +162,25 @@ async function startFakes() {
 	}
 }
 
+/**
+ * Payments: the fake in fakes/stripe on its own port per mode (like the SMTP one), and the app pointed at it,
+ * unless STRIPE_SECRET_KEY is given: then the app talks to the real service (STRIPE_API_* unset).
+ */
+function setPaymentDefaults() {
+	env.STRIPE_FAKE_PORT ??= { start: '12111', test: '12112', bench: '12113' }[mode];
+	env.STRIPE_FAKE_PUBLIC_URL ??= `http://127.0.0.1:${env.STRIPE_FAKE_PORT}`;
+	// where the fake sends signed events: the app this mode serves (start: PORT/ORIGIN; test: Playwright's server)
+	const appOrigin = mode === 'test' ? `http://127.0.0.1:${env.E2E_PORT ?? '4173'}` : (env.ORIGIN ?? `http://127.0.0.1:${env.PORT ?? '3000'}`);
+	env.STRIPE_WEBHOOK_URL ??= `${appOrigin.replace(/\/+$/, '')}/api/v1/payments/webhook`;
+	if (!env.STRIPE_SECRET_KEY) {
+		env.STRIPE_SECRET_KEY = 'sk_test_stopwise_local';
+		env.STRIPE_API_HOST ??= '127.0.0.1';
+		env.STRIPE_API_PORT ??= env.STRIPE_FAKE_PORT;
+		env.STRIPE_API_PROTOCOL ??= 'http';
+		env.STRIPE_WEBHOOK_SECRET ??= 'whsec_stopwise_local';
+	}
+}
+
 // ---------- app steps ----------
 const tsx = (script, args = []) => must(process.execPath, [join(root, 'node_modules/tsx/dist/cli.mjs'), script, ...args]);
 const bin = (name) => join(root, 'node_modules', '.bin', name);
@@ -191,6 +210,8 @@ function serve() {
 	const host = env.HOST ?? '0.0.0.0';
 	env.PORT = port;
 	env.ORIGIN ??= `http://localhost:${port}`;
+	// adapter-node refuses bodies over 512K by default: room for an Assignment's frames at STOPWISE_MAX_UPLOAD_MB each
+	env.BODY_SIZE_LIMIT ??= '500M';
 	const app = spawn(process.execPath, ['build'], { cwd: root, env, stdio: 'inherit' });
 	children.push(app);
 	app.on('exit', (code) => shutdown(code ?? 0));
@@ -223,6 +244,7 @@ async function main() {
 	env.FAKE_SMTP_PORT ??= { start: '2525', test: '2526', bench: '2527' }[mode];
 	env.MAILBOX_DIR ??= join(root, '.data', mode === 'start' ? 'mailbox' : `mailbox-${mode}`);
 	if (mode !== 'start') env.FAKE_SMTP_CLEAR ??= '1';
+	setPaymentDefaults();
 	await startFakes();
 	if (mode === 'start') {
 		build();

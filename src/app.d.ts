@@ -20,11 +20,5 @@ declare global {
 	}
 }
 
-declare module '*.svx' {
-	import type { Component } from 'svelte';
-	const component: Component<Record<string, unknown>>;
-	export default component;
-	export const metadata: Record<string, unknown>;
-}
 
 export {};

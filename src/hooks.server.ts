@@ -1,13 +1,21 @@
 // Request hooks: security headers, then the session (who is signed in, with which roles) into locals.
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
+import { building } from '$app/environment';
 import { client } from '$lib/server/db';
 import { readSession } from '$lib/server/auth';
+import { closeQueue } from '$lib/server/attempts/queue';
+import { startInlineWorker } from '$lib/server/attempts/worker';
 
-// adapter-node waits for open handles before exiting: close the pool on shutdown
+// adapter-node waits for open handles before exiting: stop the job queue, then close the pool
 process.on('sveltekit:shutdown', () => {
-	void client.end({ timeout: 5 });
+	void closeQueue().finally(() => client.end({ timeout: 5 }));
 });
+
+/** Grading runs inside the app unless STOPWISE_INLINE_WORKER=0; never while building. Not awaited: pages need not wait. */
+export const init: ServerInit = () => {
+	if (!building) void startInlineWorker();
+};
 
 const securityHeaders: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);

@@ -26,7 +26,7 @@ const SPEC: AssignmentSpecInput = {
  * A photo-like 24 MP frame: a graded background with fine noise (so the JPEG has real detail to
  * decode) and a brighter subject block in the middle. Levels are 8-bit sRGB codes.
  */
-async function makeBenchJpeg(background: [number, number, number], subject: [number, number, number], exposureTime: string, flash: string): Promise<Buffer> {
+export async function makeBenchJpeg(background: [number, number, number], subject: [number, number, number], exposureTime: string, flash: string): Promise<Buffer> {
 	const data = Buffer.alloc(WIDTH * HEIGHT * 3);
 	let seed = 0x2545f491;
 	for (let y = 0; y < HEIGHT; y++) {

@@ -12,6 +12,9 @@ type Expectation = { path?: string; params?: Record<string, string>; status: Rec
 const open = { anonymous: 200, learner: 200, mentor: 200, author: 200, admin: 200 };
 const signedIn = { anonymous: 401, learner: 200, mentor: 200, author: 200, admin: 200 };
 const adminOnly = { anonymous: 401, learner: 403, mentor: 403, author: 403, admin: 200 };
+// POSTs sent with no body: past the guard, the route refuses the missing input with a 400
+const signedInNoBody = { anonymous: 401, learner: 400, mentor: 400, author: 400, admin: 400 };
+const authorsNoBody = { anonymous: 401, learner: 403, mentor: 403, author: 400, admin: 400 };
 
 /**
  * What each route must answer, per method. A route folder on disk without an entry here, or a
@@ -20,7 +23,19 @@ const adminOnly = { anonymous: 401, learner: 403, mentor: 403, author: 403, admi
 const expectations: Record<string, Record<string, Expectation>> = {
 	'/api/health': { GET: { status: open } },
 	'/api/v1/me': { GET: { status: signedIn } },
-	'/api/v1/admin/people': { GET: { path: '/api/v1/admin/people?q=demo&sort=email', status: adminOnly } }
+	'/api/v1/admin/people': { GET: { path: '/api/v1/admin/people?q=demo&sort=email', status: adminOnly } },
+	'/api/v1/quiz-answers': { POST: { status: signedInNoBody } },
+	'/api/v1/attempts': { POST: { status: signedInNoBody } },
+	// someone else's attempt and a missing one answer alike: 404
+	'/api/v1/attempts/[id]': {
+		GET: { path: '/api/v1/attempts/00000000-0000-4000-8000-000000000000', params: { id: '00000000-0000-4000-8000-000000000000' }, status: { anonymous: 401, learner: 404, mentor: 404, author: 404, admin: 404 } }
+	},
+	'/api/v1/review-queue': { GET: { status: { anonymous: 401, learner: 403, mentor: 200, author: 403, admin: 200 } } },
+	'/api/v1/author/preview': { POST: { status: authorsNoBody } },
+	'/api/v1/author/spec-check': { POST: { status: authorsNoBody } },
+	'/api/v1/author/images': { POST: { status: authorsNoBody } },
+	// public (the provider calls it with no session), but an unsigned request is refused whoever sends it
+	'/api/v1/payments/webhook': { POST: { status: { anonymous: 400, learner: 400, mentor: 400, author: 400, admin: 400 } } }
 };
 
 const apiRoot = resolve('src/routes/api');

@@ -64,10 +64,54 @@ export function emailChangedNotice(to: string, name: string, newEmail: string): 
 	]);
 }
 
+export function critiqueLetter(to: string, name: string, r: { assignment: string; verdict: string; changed: boolean; href: string }): Letter {
+	return compose(
+		to,
+		`Your mentor's critique: ${r.assignment}`,
+		[
+			`Hello ${name},`,
+			`A mentor has reviewed your attempt at "${r.assignment}" and written a critique, with notes pinned on your photo.`,
+			r.changed ? `The mentor changed the verdict to: ${r.verdict}. The reason is on the verdict page.` : `Verdict: ${r.verdict}.`
+		],
+		{ href: r.href, label: 'Read the critique' }
+	);
+}
+
 export function passwordChangedNotice(to: string, name: string): Letter {
 	return compose(to, 'Your Stopwise password was changed', [
 		`Hello ${name},`,
 		'The password of your Stopwise account was just changed, and other devices were signed out.',
 		'If you did not do this, reset your password from the sign-in page and contact the school.'
 	]);
+}
+
+export type ReceiptFacts = { course: string; amount: string; paidAt: string; reference: string; coupon: string | null; href: string };
+
+export function receiptLetter(to: string, name: string, r: ReceiptFacts): Letter {
+	return compose(
+		to,
+		`Your Stopwise receipt: ${r.course}`,
+		[
+			`Hello ${name},`,
+			`Thank you for enrolling in "${r.course}". Every lesson of the course is open to you now.`,
+			`Paid: ${r.amount}${r.coupon ? ` (coupon ${r.coupon})` : ''}`,
+			`Date: ${r.paidAt}`,
+			`Reference: ${r.reference}`,
+			'Keep this e-mail as your receipt. Your billing page lists every payment.'
+		],
+		{ href: r.href, label: 'See your billing page' }
+	);
+}
+
+export function refundLetter(to: string, name: string, r: Omit<ReceiptFacts, 'paidAt' | 'coupon'>): Letter {
+	return compose(
+		to,
+		`Your Stopwise refund: ${r.course}`,
+		[
+			`Hello ${name},`,
+			`We refunded ${r.amount} for "${r.course}" (reference ${r.reference}). It usually reaches your card within a few working days.`,
+			'The members-only lessons of this course are closed to your account now; the free previews stay open.'
+		],
+		{ href: r.href, label: 'See your billing page' }
+	);
 }

@@ -30,6 +30,9 @@ type EventInit = {
 	method?: string;
 	path: string;
 	form?: Record<string, string | string[]>;
+	/** a JSON body (sent with content-type application/json); `rawBody` sends text as given */
+	json?: unknown;
+	rawBody?: string;
 	cookies?: TestCookies;
 	address?: string;
 	params?: Record<string, string>;
@@ -46,10 +49,11 @@ export function makeEvent(init: EventInit): RequestEvent {
 		body = new FormData();
 		for (const [k, v] of Object.entries(init.form)) for (const one of [v].flat()) body.append(k, one);
 	}
+	const text = init.json !== undefined ? JSON.stringify(init.json) : init.rawBody;
 	const request = new Request(url, {
-		method: init.method ?? (body ? 'POST' : 'GET'),
-		body,
-		headers: { origin, ...init.headers }
+		method: init.method ?? (body || text !== undefined ? 'POST' : 'GET'),
+		body: body ?? text,
+		headers: { origin, ...(text !== undefined ? { 'content-type': 'application/json' } : {}), ...init.headers }
 	});
 	const event = {
 		request,
@@ -97,4 +101,10 @@ export async function throughHooks<T>(event: RequestEvent, fn: (e: RequestEvent)
 export function failureOf(value: unknown): { status: number; data: Record<string, unknown> } | null {
 	const v = value as { status?: number; data?: Record<string, unknown> } | null;
 	return v && typeof v.status === 'number' && v.data ? { status: v.status, data: v.data } : null;
+}
+
+/** The value an outcome ended with; throws (failing the test) on a redirect or an error. */
+export function valueOf<T>(outcome: Outcome<unknown>): T {
+	if (outcome.kind !== 'value') throw new Error(`expected a value, got ${JSON.stringify(outcome)}`);
+	return outcome.value as T;
 }

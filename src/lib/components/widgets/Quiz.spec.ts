@@ -58,4 +58,27 @@ describe('Quiz', () => {
 		const numeric = show({ id: 'q', question: 'How many?', answer: 'three' });
 		expect(textOf(numeric, 'widget-notice')).toContain('answer="three" is not a number');
 	});
+
+	it('shows a signed-in learner their saved answer again, checked against the question', () => {
+		fake.data = { user: { id: 'u1' }, quizAnswers: { 'gn-1': { answer: '24', correct: true }, other: { answer: '9', correct: false } } };
+		const body = show({ id: 'gn-1', question: 'GN at 1/4 power?', answer: '24', tolerance: '0.5', unit: 'm' });
+		expect(attrOf(body, 'quiz-answer', 'value')).toBe('24');
+		expect(textOf(body, 'quiz-result')).toContain('Right: the answer is 24 m');
+		expect(textOf(body, 'quiz-saving')).toBe('Your saved answer.');
+		const choice = show({ id: 'other', question: 'Which?', choices: 'a|b|c', answer: '2' });
+		// the saved choice (3, “c”) is re-checked against the right one (2, “b”)
+		expect(textOf(choice, 'quiz-result')).toContain('Not quite: the answer is “b”.');
+	});
+
+	it('starts empty when there is no saved answer for this quiz', () => {
+		fake.data = { user: { id: 'u1' }, quizAnswers: { elsewhere: { answer: '24', correct: true } } };
+		const body = show({ id: 'gn-1', question: 'GN?', answer: '24' });
+		expect(attrOf(body, 'quiz-answer', 'value') ?? '').toBe('');
+		expect(textOf(body, 'quiz-result')).toBe('');
+	});
+
+	it('says answers are not saved in an author’s preview', () => {
+		fake.data = { user: { id: 'a1' }, lessonPreview: true };
+		expect(textOf(show({ id: 'q', question: 'Two?', answer: '2' }), 'quiz-saving')).toBe('Preview: answers are not saved.');
+	});
 });

@@ -1,9 +1,13 @@
-// Review queue landing page for mentors: waiting attempts (none until uploads exist) and the assignments.
+// The review queue: the first page is rendered on the server; the table then filters, sorts and pages through the JSON API.
 import { requireRole } from '$lib/server/guards';
-import { listAssignmentsForReview } from '$lib/server/staff-overview';
+import { readQueueParams } from '$lib/attempts/queue-params';
+import { fetchReviewQueue, queueFilterOptions } from '$lib/server/review/queue-query';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'mentor');
-	return { assignments: await listAssignmentsForReview() };
+	const params = { ...readQueueParams(event.url.searchParams), cursor: '' };
+	const [page, options] = await Promise.all([fetchReviewQueue(params), queueFilterOptions()]);
+	const { cursor: _cursor, ...query } = params;
+	return { query, attempts: page.ok ? page.rows : [], nextCursor: page.ok ? page.nextCursor : null, options };
 };

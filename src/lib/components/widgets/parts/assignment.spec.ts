@@ -40,6 +40,8 @@ describe('verdict display', () => {
 		expect(verdictBadge('pass')).toEqual({ label: 'Passed', tone: 'pass' });
 		expect(verdictBadge('FAIL')).toEqual({ label: 'Not yet', tone: 'fail' });
 		expect(verdictBadge('review')).toEqual({ label: 'With a mentor', tone: 'review' });
+		// the attempts block stores this verdict as 'needs-review'
+		expect(verdictBadge('needs-review')).toEqual({ label: 'With a mentor', tone: 'review' });
 		expect(verdictBadge('excellent')).toEqual({ label: 'excellent', tone: 'neutral' });
 	});
 	it('shows dates in UTC and passes unreadable ones through', () => {

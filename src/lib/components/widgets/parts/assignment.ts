@@ -52,6 +52,7 @@ export function verdictBadge(verdict: string): { label: string; tone: 'pass' | '
 		case 'failed':
 			return { label: 'Not yet', tone: 'fail' };
 		case 'review':
+		case 'needs-review':
 		case 'unknown':
 		case 'pending':
 			return { label: 'With a mentor', tone: 'review' };

@@ -1,8 +1,12 @@
-import { error } from '@sveltejs/kit';
+import { error, fail, redirect } from '@sveltejs/kit';
 import { getCourseOutline } from '$lib/server/courses';
-import type { PageServerLoad } from './$types';
+import { readEnrolmentState, readCourseNotice } from '$lib/server/payments/course-page';
+import { startCheckout } from '$lib/server/payments/checkout';
+import { requireUser } from '$lib/server/guards';
+import { courseProgress } from '$lib/server/progress';
+import type { Actions, PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async ({ params }) => {
+export const load: PageServerLoad = async ({ params, locals, url }) => {
 	const outline = await getCourseOutline(params.course);
 	if (!outline) error(404, { message: 'There is no such course.' });
 	const { course, modules } = outline;
@@ -15,6 +19,23 @@ export const load: PageServerLoad = async ({ params }) => {
 			priceCents: course.priceCents,
 			currency: course.currency
 		},
-		modules
+		modules,
+		enrolment: await readEnrolmentState(locals.user, course.id),
+		notice: readCourseNotice(url.searchParams, modules),
+		// a signed-in learner's completed lessons (by slug) and where they left off
+		progress: locals.user ? await courseProgress(locals.user.id, course.id) : null
 	};
 };
+
+export const actions = {
+	enrol: async (event) => {
+		const user = requireUser(event);
+		const data = await event.request.formData();
+		const coupon = String(data.get('coupon') ?? '').slice(0, 100);
+		const started = await startCheckout(user, event.params.course, coupon, event.url.origin);
+		if (started.kind === 'refused') return fail(started.status, { enrol: { message: started.message, coupon } });
+		if (started.kind === 'enrolled') redirect(303, `/courses/${event.params.course}?checkout=${started.already ? 'already' : 'free'}`);
+		// the provider's payment page, on another origin: the form is a plain POST, so the browser follows this 303
+		redirect(303, started.url);
+	}
+} satisfies Actions;

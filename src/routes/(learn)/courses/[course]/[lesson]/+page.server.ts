@@ -1,11 +1,27 @@
-import { error } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { getLesson } from '$lib/server/courses';
-import type { PageServerLoad } from './$types';
+import { renderPublishedLesson } from '$lib/server/authoring/published';
+import { setLessonComplete, visitLesson } from '$lib/server/progress';
+import { hasCourseAccess, requireCourseAccess } from '$lib/server/enrolment-access';
+import { requireUser, signInPath } from '$lib/server/guards';
+import { lessonAssignmentCards } from '$lib/server/attempts/history';
+import type { Actions, PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async ({ params }) => {
+export const load: PageServerLoad = async ({ params, locals, url }) => {
 	const found = await getLesson(params.course, params.lesson);
 	if (!found) error(404, { message: 'There is no such lesson.' });
 	const { lesson, module, course } = found;
+	// paid access, checked before anything of the lesson is returned: others get the course page's enrol offer
+	if (!lesson.freePreview && !(await hasCourseAccess(locals.user, course.id))) {
+		redirect(303, locals.user ? `/courses/${course.slug}?locked=${encodeURIComponent(lesson.slug)}` : signInPath(url));
+	}
+	// every lesson is rendered here, files too: a client-side import would put paid text in public bundles
+	const [rendered, visit, assignmentCards] = await Promise.all([
+		renderPublishedLesson(lesson),
+		locals.user ? visitLesson(locals.user.id, lesson.id) : null,
+		lessonAssignmentCards(locals.user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found.assignments)
+	]);
+	if (!rendered) error(404, { message: 'This lesson has no text yet.' });
 	return {
 		course: { slug: course.slug, title: course.title },
 		module: { slug: module.slug, title: module.title },
@@ -14,8 +30,24 @@ export const load: PageServerLoad = async ({ params }) => {
 			title: lesson.title,
 			summary: lesson.summary,
 			minutes: lesson.minutes,
-			freePreview: lesson.freePreview,
-			contentPath: lesson.contentPath
-		}
+			freePreview: lesson.freePreview
+		},
+		segments: rendered.segments,
+		progress: visit ? { completed: visit.completed } : null,
+		quizAnswers: visit?.quizAnswers ?? {},
+		assignments: assignmentCards
 	};
 };
+
+export const actions = {
+	/** "Mark complete" (done=yes) and its undo (done=no). */
+	complete: async (event) => {
+		const user = requireUser(event);
+		const found = await getLesson(event.params.course, event.params.lesson);
+		if (!found) error(404, { message: 'There is no such lesson.' });
+		if (!found.lesson.freePreview) await requireCourseAccess(user, found.course.id, found.course.slug);
+		const done = (await event.request.formData()).get('done') !== 'no';
+		await setLessonComplete(user.id, found.lesson.id, done);
+		return { completed: done };
+	}
+} satisfies Actions;

@@ -1,0 +1,50 @@
+// Client-side upload checks: messages for wrong type, size and missing frames; progress split per file.
+import { describe, expect, it } from 'vitest';
+import { checkChosenFile, formatMegabytes, missingFramesMessage, progressPerFile } from './upload-checks';
+
+const MB = 1024 * 1024;
+
+describe('checkChosenFile', () => {
+	it('accepts camera JPEGs and other measurable photos by type or by name', () => {
+		expect(checkChosenFile({ name: 'DSC_0042.JPG', type: 'image/jpeg', size: 9 * MB }, 40 * MB)).toBeNull();
+		expect(checkChosenFile({ name: 'lit.webp', type: '', size: MB }, 40 * MB)).toBeNull();
+	});
+	it('says what to do with a wrong type, HEIC, RAW, an empty or an oversized file', () => {
+		expect(checkChosenFile({ name: 'notes.pdf', type: 'application/pdf', size: MB }, 40 * MB)).toMatch(/not a photo we can read/);
+		expect(checkChosenFile({ name: 'IMG_1.HEIC', type: 'image/heic', size: MB }, 40 * MB)).toMatch(/HEIC/);
+		expect(checkChosenFile({ name: 'run.NEF', type: '', size: MB }, 40 * MB)).toMatch(/RAW/);
+		expect(checkChosenFile({ name: 'a.jpg', type: 'image/jpeg', size: 0 }, 40 * MB)).toMatch(/empty/);
+		expect(checkChosenFile({ name: 'a.jpg', type: 'image/jpeg', size: 41 * MB }, 40 * MB)).toBe(
+			'This file is 41 MB; the limit is 40 MB. Export a JPEG at full size and normal quality, which stays well under it.'
+		);
+	});
+});
+
+describe('formatMegabytes', () => {
+	it('shows small files in KB and large ones in MB', () => {
+		expect(formatMegabytes(300)).toBe('1 KB');
+		expect(formatMegabytes(150 * 1024)).toBe('150 KB');
+		expect(formatMegabytes(9.44 * MB)).toBe('9.4 MB');
+		expect(formatMegabytes(41 * MB)).toBe('41 MB');
+	});
+});
+
+describe('missingFramesMessage', () => {
+	it('names the missing frames', () => {
+		expect(missingFramesMessage(['reference', 'lit'], { reference: {} })).toBe('Add the “lit” frame before sending.');
+		expect(missingFramesMessage(['reference', 'lit'], {})).toBe('Add the “reference” and “lit” frames before sending.');
+		expect(missingFramesMessage(['base', 'minus-one', 'minus-two'], {})).toBe('Add the “base”, “minus-one” and “minus-two” frames before sending.');
+		expect(missingFramesMessage(['reference'], { reference: 1 })).toBeNull();
+	});
+});
+
+describe('progressPerFile', () => {
+	it('splits the bytes sent over the files in body order', () => {
+		expect(progressPerFile([1000, 3000], 0, 100, 200)).toEqual([0, 0]);
+		// lead 100 + header 200 + 500 of the first file
+		expect(progressPerFile([1000, 3000], 800, 100, 200)).toEqual([0.5, 0]);
+		// first done, second header 200, then 1500 of 3000
+		expect(progressPerFile([1000, 3000], 100 + 200 + 1000 + 200 + 1500, 100, 200)).toEqual([1, 0.5]);
+		expect(progressPerFile([1000, 3000], 1e9, 100, 200)).toEqual([1, 1]);
+	});
+});

@@ -1,0 +1,61 @@
+// Checks a browser can make before sending frames (the server checks again, by the file's bytes), and per-file progress.
+
+/** What the file picker offers: photos a camera or phone writes. */
+export const ACCEPT = 'image/jpeg,image/png,image/webp,image/tiff,image/avif,.jpg,.jpeg,.png,.webp,.tif,.tiff,.avif,.heic,.heif';
+
+const MEASURABLE = /\.(jpe?g|png|webp|tiff?|avif)$/i;
+const MEASURABLE_TYPES = new Set(['image/jpeg', 'image/png', 'image/webp', 'image/tiff', 'image/avif']);
+const HEIC = /\.(heic|heif)$/i;
+const RAW = /\.(cr2|cr3|nef|arw|dng|orf|rw2|raf|pef|srw)$/i;
+
+export interface ChosenFile {
+	name: string;
+	type: string;
+	size: number;
+}
+
+const MB = 1024 * 1024;
+
+export function formatMegabytes(bytes: number): string {
+	if (bytes < MB) return `${Math.max(1, Math.round(bytes / 1024))} KB`;
+	return `${(bytes / MB).toFixed(bytes < 10 * MB ? 1 : 0)} MB`;
+}
+
+/** A plain reason this file will not do, or null. */
+export function checkChosenFile(file: ChosenFile, maxBytes: number): string | null {
+	if (file.size === 0) return 'This file is empty. Please choose the photo again.';
+	if (HEIC.test(file.name) || /heic|heif/i.test(file.type)) {
+		return 'HEIC photos cannot be measured or shown here. Set your phone to share “Most compatible” (JPEG), or export a JPEG.';
+	}
+	if (RAW.test(file.name)) return 'Camera RAW files cannot be measured or shown here. Upload a JPEG export of the same frame.';
+	if (!MEASURABLE_TYPES.has(file.type) && !MEASURABLE.test(file.name)) {
+		return 'This is not a photo we can read. Upload a JPEG (or PNG, WebP, TIFF, AVIF) straight from the camera or your editor.';
+	}
+	if (file.size > maxBytes) {
+		return `This file is ${formatMegabytes(file.size)}; the limit is ${formatMegabytes(maxBytes)}. Export a JPEG at full size and normal quality, which stays well under it.`;
+	}
+	return null;
+}
+
+/** The frames still without a file, as one message, or null when all are there. */
+export function missingFramesMessage(frames: readonly string[], chosen: Readonly<Record<string, unknown>>): string | null {
+	const missing = frames.filter((f) => !chosen[f]);
+	if (missing.length === 0) return null;
+	const quoted = missing.map((f) => `“${f}”`);
+	const list = quoted.length === 1 ? quoted[0] : `${quoted.slice(0, -1).join(', ')} and ${quoted.at(-1)}`;
+	return `Add the ${list} frame${missing.length === 1 ? '' : 's'} before sending.`;
+}
+
+/**
+ * How far each file is, 0–1, from the bytes of one multipart body sent so far. The body carries the files
+ * in order, each after a small part header (`overhead` bytes before each file, `lead` before the first).
+ */
+export function progressPerFile(sizes: readonly number[], loaded: number, lead = 0, overhead = 200): number[] {
+	let start = lead;
+	return sizes.map((size) => {
+		start += overhead;
+		const done = size === 0 ? (loaded >= start ? 1 : 0) : Math.min(1, Math.max(0, (loaded - start) / size));
+		start += size;
+		return done;
+	});
+}

@@ -1,0 +1,57 @@
+// Authoring form schemas: lesson drafts, lesson settings, new lessons and assignments (server-authoritative).
+import { z } from 'zod';
+
+/** Long lessons are fine; a body this size is a paste gone wrong, and it would slow every preview. */
+export const MAX_BODY_LENGTH = 100_000;
+
+const slug = z
+	.string()
+	.trim()
+	.toLowerCase()
+	.min(1, 'Give it a slug (it becomes part of the address).')
+	.max(80, 'Use at most 80 characters.')
+	.regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, 'Use lower-case letters, digits and single hyphens, e.g. reading-the-sky.');
+
+const title = z.string().trim().min(1, 'Give it a title.').max(120, 'Use at most 120 characters.');
+const summary = z.string().trim().max(400, 'Use at most 400 characters.');
+const minutes = z.coerce.number({ error: 'Minutes must be a number.' }).int('Use whole minutes.').min(1, 'At least 1 minute.').max(240, 'At most 240 minutes.');
+/** An HTML checkbox sends "on" when ticked and nothing when not. */
+const checkbox = z.preprocess((v) => v === 'on' || v === 'true' || v === true, z.boolean());
+
+export const draftSchema = z.object({
+	title,
+	summary,
+	body: z.string().max(MAX_BODY_LENGTH, `The text is over ${MAX_BODY_LENGTH.toLocaleString('en')} characters: split the lesson in two.`),
+	note: z.string().trim().max(200, 'Keep the note under 200 characters.').default('')
+});
+export type DraftInput = z.infer<typeof draftSchema>;
+
+export const settingsSchema = z.object({ minutes, freePreview: checkbox });
+export type SettingsInput = z.infer<typeof settingsSchema>;
+
+export const newLessonSchema = z.object({
+	moduleId: z.coerce.number().int().positive('Choose a module.'),
+	title,
+	slug,
+	summary,
+	minutes,
+	freePreview: checkbox
+});
+export type NewLessonInput = z.infer<typeof newLessonSchema>;
+
+export const assignmentFieldsSchema = z.object({
+	title,
+	brief: z.string().trim().min(1, 'Write a brief: what to shoot and why.').max(4000, 'Use at most 4000 characters.'),
+	spec: z.string().max(50_000, 'The spec is too long.')
+});
+export const newAssignmentSchema = assignmentFieldsSchema.extend({ slug });
+
+/** Field name → first message, for showing next to each field. */
+export function fieldErrors(error: z.ZodError): Record<string, string> {
+	const out: Record<string, string> = {};
+	for (const issue of error.issues) {
+		const key = String(issue.path[0] ?? 'form');
+		out[key] ??= issue.message;
+	}
+	return out;
+}

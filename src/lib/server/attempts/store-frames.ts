@@ -1,0 +1,85 @@
+// Checks each uploaded frame and writes its original and display copies (no GPS or personal metadata) to the store.
+import { detectFileType, displayCopies, FrameReadError } from '../analysis/index';
+import { fileStore } from '../storage/index';
+import { frameKeys, MIME_TYPES } from './keys';
+import { maxUploadBytes } from './limits';
+
+export interface CheckedFrame {
+	name: string;
+	index: number;
+	bytes: Uint8Array;
+	kind: keyof typeof MIME_TYPES;
+	large: Buffer;
+	thumb: Buffer;
+}
+
+export interface StoredFrame {
+	name: string;
+	originalKey: string;
+	largeKey: string;
+	thumbKey: string;
+	mime: string;
+	bytes: number;
+}
+
+const MB = 1024 * 1024;
+
+/** Per-frame problems in the learner's words; an empty object when every frame will do. */
+export type FrameProblems = Record<string, string>;
+
+/** Type and size by the bytes (never the name), then the display copies, which also prove the file decodes. */
+export async function checkFrames(names: readonly string[], files: Map<string, File>): Promise<{ frames: CheckedFrame[]; problems: FrameProblems }> {
+	const limit = maxUploadBytes();
+	const problems: FrameProblems = {};
+	const frames: CheckedFrame[] = [];
+	await Promise.all(
+		names.map(async (name, index) => {
+			const file = files.get(name);
+			if (!file || file.size === 0) {
+				problems[name] = file ? 'This file is empty. Please choose the photo again.' : `The “${name}” frame is missing. Add it and send again.`;
+				return;
+			}
+			if (file.size > limit) {
+				problems[name] = `This file is ${(file.size / MB).toFixed(0)} MB; the limit is ${(limit / MB).toFixed(0)} MB. Export a JPEG at full size and normal quality, which stays well under it.`;
+				return;
+			}
+			const bytes = new Uint8Array(await file.arrayBuffer());
+			try {
+				// displayCopies refuses, in the learner's words, every kind it cannot show (HEIC, RAW, GIF, unknown)
+				const copies = await displayCopies(bytes, { limits: { maxBytes: limit } });
+				const kind = detectFileType(bytes).kind as CheckedFrame['kind'];
+				frames.push({ name, index, bytes, kind, large: copies.large.data, thumb: copies.thumbnail.data });
+			} catch (error) {
+				if (!(error instanceof FrameReadError)) throw error;
+				problems[name] = error.message;
+			}
+		})
+	);
+	frames.sort((a, b) => a.index - b.index);
+	return { frames, problems };
+}
+
+/** Writes every file of the attempt; on any failure removes what was written and rethrows. */
+export async function writeFrames(attemptId: string, frames: readonly CheckedFrame[]): Promise<StoredFrame[]> {
+	const store = fileStore();
+	const written: string[] = [];
+	try {
+		const stored: StoredFrame[] = [];
+		for (const f of frames) {
+			const keys = frameKeys(attemptId, f.index, f.kind);
+			for (const [key, data] of [
+				[keys.originalKey, f.bytes],
+				[keys.largeKey, f.large],
+				[keys.thumbKey, f.thumb]
+			] as const) {
+				await store.put(key, data);
+				written.push(key);
+			}
+			stored.push({ name: f.name, ...keys, mime: MIME_TYPES[f.kind]!, bytes: f.bytes.length });
+		}
+		return stored;
+	} catch (error) {
+		await Promise.all(written.map((key) => store.delete(key).catch(() => undefined)));
+		throw error;
+	}
+}

@@ -1,0 +1,48 @@
+// Reads the upload form (multipart): assignment, submission key, subject box, optional Light Plan and one file per frame.
+import { checkBox, parseBox, DEFAULT_SUBJECT_BOX, type Box } from '../analysis/index';
+import { parseLightPlan, type AttachedLightPlan } from './light-plan';
+
+export interface UploadForm {
+	assignmentSlug: string;
+	submissionKey: string;
+	subjectBox: Box;
+	lightPlan: AttachedLightPlan | null;
+	/** by frame name, from fields named `frame:<name>` */
+	files: Map<string, File>;
+}
+
+export type UploadFormResult = { ok: true; form: UploadForm } | { ok: false; message: string };
+
+// a browser-made UUID or any other unguessable token; bounded so it cannot bloat the unique index
+const SUBMISSION_KEY = /^[A-Za-z0-9_-]{8,64}$/;
+
+const text = (data: FormData, name: string) => {
+	const value = data.get(name);
+	return typeof value === 'string' ? value : '';
+};
+
+export function readUploadForm(data: FormData): UploadFormResult {
+	const assignmentSlug = text(data, 'assignment').trim();
+	if (!assignmentSlug) return { ok: false, message: 'The upload does not say which assignment it is for.' };
+	const submissionKey = text(data, 'submissionKey').trim();
+	if (!SUBMISSION_KEY.test(submissionKey)) return { ok: false, message: 'The upload is missing its submission key. Reload the page and try again.' };
+
+	let subjectBox: Box = { ...DEFAULT_SUBJECT_BOX };
+	const boxText = text(data, 'subjectBox').trim();
+	if (boxText) {
+		const box = parseBox(boxText);
+		const problem = box ? checkBox(box) : 'The subject box needs four numbers: x, y, width, height.';
+		if (problem || !box) return { ok: false, message: problem ?? 'The subject box could not be read.' };
+		subjectBox = box;
+	}
+
+	const plan = parseLightPlan(text(data, 'lightPlan'));
+	if (!plan.ok) return { ok: false, message: plan.message };
+
+	const files = new Map<string, File>();
+	for (const [name, value] of data.entries()) {
+		if (!name.startsWith('frame:') || typeof value === 'string') continue;
+		files.set(name.slice('frame:'.length), value);
+	}
+	return { ok: true, form: { assignmentSlug, submissionKey, subjectBox, lightPlan: plan.plan, files } };
+}

@@ -1,0 +1,90 @@
+// Admin's enrolment list (filters from URL params) and granting or revoking access by hand.
+import { and, count, desc, eq, ilike, sql, type SQL } from 'drizzle-orm';
+import { z } from 'zod';
+import { db } from '../db';
+import { courses, enrolments, users } from '../db/schema';
+import { escapeLike } from './admin-payments';
+import { activateEnrolment } from './enrolments';
+
+export const enrolmentsPageSize = 25;
+
+export const enrolmentsQuerySchema = z.object({
+	status: z.enum(['active', 'revoked', '']).catch(''),
+	course: z.string().trim().max(100).catch(''),
+	q: z.string().trim().max(100).catch(''),
+	page: z.coerce.number().int().min(1).max(100_000).catch(1)
+});
+export type EnrolmentsQuery = z.infer<typeof enrolmentsQuerySchema>;
+
+export function readEnrolmentsQuery(params: URLSearchParams): EnrolmentsQuery {
+	const pick = (k: string) => params.get(k) ?? undefined;
+	return enrolmentsQuerySchema.parse({ status: pick('status'), course: pick('course'), q: pick('q'), page: pick('page') });
+}
+
+export async function listEnrolments(query: EnrolmentsQuery) {
+	const filters: SQL[] = [];
+	if (query.status) filters.push(eq(enrolments.status, query.status));
+	if (query.course) filters.push(eq(courses.slug, query.course));
+	if (query.q) filters.push(ilike(users.email, `%${escapeLike(query.q)}%`));
+	const where = and(...filters);
+	const [rows, [{ total }], courseList] = await Promise.all([
+		db
+			.select({
+				id: enrolments.id,
+				email: users.email,
+				name: users.name,
+				course: courses.title,
+				courseSlug: courses.slug,
+				status: enrolments.status,
+				source: enrolments.source,
+				createdAt: enrolments.createdAt,
+				revokedAt: enrolments.revokedAt
+			})
+			.from(enrolments)
+			.innerJoin(users, eq(enrolments.userId, users.id))
+			.innerJoin(courses, eq(enrolments.courseId, courses.id))
+			.where(where)
+			.orderBy(desc(enrolments.createdAt), desc(enrolments.id))
+			.limit(enrolmentsPageSize)
+			.offset((query.page - 1) * enrolmentsPageSize),
+		db
+			.select({ total: count() })
+			.from(enrolments)
+			.innerJoin(users, eq(enrolments.userId, users.id))
+			.innerJoin(courses, eq(enrolments.courseId, courses.id))
+			.where(where),
+		db.select({ slug: courses.slug, title: courses.title }).from(courses).orderBy(courses.title)
+	]);
+	return { enrolments: rows, total, pages: Math.max(1, Math.ceil(total / enrolmentsPageSize)), courses: courseList };
+}
+
+export const grantSchema = z.object({
+	email: z.string().trim().toLowerCase().max(254).pipe(z.email('Enter the learner’s e-mail address.')),
+	course: z.string().trim().min(1, 'Choose a course.').max(100)
+});
+
+export type ChangeResult = { ok: true; message: string } | { ok: false; message: string };
+
+type Actor = { id: string; email: string };
+
+/** Opens a course to a person by hand (a scholarship, a mentor's guest); the server log keeps who did it. */
+export async function grantEnrolment(actor: Actor, email: string, courseSlug: string): Promise<ChangeResult> {
+	const [user] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(sql`lower(${users.email})`, email.toLowerCase()));
+	if (!user) return { ok: false, message: `Nobody has an account with ${email}.` };
+	const course = await db.query.courses.findFirst({ where: eq(courses.slug, courseSlug) });
+	if (!course) return { ok: false, message: 'That course does not exist.' };
+	await activateEnrolment(db, { userId: user.id, courseId: course.id, source: 'admin', paymentId: null });
+	console.info(`[enrolments] ${actor.email} granted ${email} access to ${course.slug}`);
+	return { ok: true, message: `${user.name} is enrolled in ${course.title}.` };
+}
+
+export async function setEnrolmentStatus(actor: Actor, enrolmentId: number, status: 'active' | 'revoked'): Promise<ChangeResult> {
+	const rows = await db
+		.update(enrolments)
+		.set(status === 'revoked' ? { status, revokedAt: sql`now()` } : { status, revokedAt: null })
+		.where(eq(enrolments.id, enrolmentId))
+		.returning({ id: enrolments.id, userId: enrolments.userId, courseId: enrolments.courseId });
+	if (!rows[0]) return { ok: false, message: 'That enrolment does not exist.' };
+	console.info(`[enrolments] ${actor.email} set enrolment ${enrolmentId} (${rows[0].userId} in course ${rows[0].courseId}) to ${status}`);
+	return { ok: true, message: status === 'revoked' ? 'Access revoked.' : 'Access restored.' };
+}

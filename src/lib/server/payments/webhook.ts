@@ -1,0 +1,68 @@
+// Receives provider events: checks the signature on the raw body, stores each event once, settles it in one transaction.
+import { eq, sql } from 'drizzle-orm';
+import type Stripe from 'stripe';
+import { db } from '../db';
+import { webhookEvents } from '../db/schema';
+import { readStripeSettings, webhooks } from './stripe';
+import { settleChargeRefunded, settleSessionExpired, settleSessionPaid, type Settled } from './settle';
+import { mailSettlement } from './receipts';
+import type { Tx } from './enrolments';
+
+export type WebhookReply = { status: number; body: { received: boolean; error?: string; message?: string; duplicate?: boolean } };
+
+/**
+ * `rawBody` must be the exact bytes received (`await request.text()`): the signature covers them, and a body that
+ * was parsed and re-serialised would no longer match.
+ */
+export async function receiveWebhook(rawBody: string, signature: string | null, origin: string): Promise<WebhookReply> {
+	if (!signature) return { status: 400, body: { received: false, error: 'bad-signature', message: 'No Stripe-Signature header.' } };
+	const secret = readStripeSettings().webhookSecret;
+	if (!secret) {
+		console.error('[payments] STRIPE_WEBHOOK_SECRET is not set: webhook events cannot be checked and are refused');
+		return { status: 503, body: { received: false, error: 'not-configured', message: 'Webhooks are not set up on this server.' } };
+	}
+	let event: Stripe.Event;
+	try {
+		event = webhooks.constructEvent(rawBody, signature, secret);
+	} catch (e) {
+		return { status: 400, body: { received: false, error: 'bad-signature', message: e instanceof Error ? e.message : 'Bad signature.' } };
+	}
+
+	let outcome: { duplicate: true } | { duplicate: false; settled: Settled };
+	try {
+		outcome = await db.transaction(async (tx) => {
+			const stored = await tx
+				.insert(webhookEvents)
+				.values({ id: event.id, type: event.type, payload: event })
+				.onConflictDoNothing()
+				.returning({ id: webhookEvents.id });
+			// a replay (the provider retries, or redelivers by hand) finds the row and changes nothing
+			if (stored.length === 0) return { duplicate: true } as const;
+			const settled = await settleEvent(tx, event);
+			await tx.update(webhookEvents).set({ processedAt: sql`now()` }).where(eq(webhookEvents.id, event.id));
+			return { duplicate: false, settled } as const;
+		});
+	} catch (e) {
+		// nothing was stored (the transaction rolled back): a retry of this delivery will process it afresh
+		console.error(`[payments] could not process ${event.type} ${event.id}`, e instanceof Error ? e.message : e);
+		return { status: 503, body: { received: false, error: 'try-again', message: 'Could not process the event just now.' } };
+	}
+	if (outcome.duplicate) return { status: 200, body: { received: true, duplicate: true } };
+	mailSettlement(outcome.settled, origin);
+	return { status: 200, body: { received: true } };
+}
+
+function settleEvent(tx: Tx, event: Stripe.Event): Promise<Settled> {
+	switch (event.type) {
+		case 'checkout.session.completed':
+		case 'checkout.session.async_payment_succeeded':
+			return settleSessionPaid(tx, event.data.object);
+		case 'checkout.session.expired':
+			return settleSessionExpired(tx, event.data.object);
+		case 'charge.refunded':
+			return settleChargeRefunded(tx, event.data.object);
+		default:
+			// kept for the record; nothing in Stopwise depends on it
+			return Promise.resolve({ change: 'none', reason: `ignored ${event.type}` });
+	}
+}

@@ -1,0 +1,88 @@
+// A learner's progress: lessons visited and completed, saved quiz answers, and where to pick up again.
+import { and, desc, eq, inArray, isNotNull, sql } from 'drizzle-orm';
+import { db } from './db';
+import { courses, lessonProgress, lessons, modules, quizAnswers } from './db/schema';
+
+export type SavedAnswers = Record<string, { answer: string; correct: boolean }>;
+
+/** Notes the visit (for "Continue") and returns what the lesson page shows: completion and saved answers. */
+export async function visitLesson(userId: string, lessonId: number): Promise<{ completed: boolean; quizAnswers: SavedAnswers }> {
+	const [[row], answers] = await Promise.all([
+		db
+			.insert(lessonProgress)
+			.values({ userId, lessonId })
+			.onConflictDoUpdate({ target: [lessonProgress.userId, lessonProgress.lessonId], set: { lastVisitedAt: sql`now()` } })
+			.returning({ completedAt: lessonProgress.completedAt }),
+		db.select().from(quizAnswers).where(and(eq(quizAnswers.userId, userId), eq(quizAnswers.lessonId, lessonId)))
+	]);
+	return {
+		completed: row.completedAt !== null,
+		quizAnswers: Object.fromEntries(answers.map((a) => [a.quizId, { answer: a.answer, correct: a.correct }]))
+	};
+}
+
+/** Marks a lesson complete (or not); completing again keeps the first completion time. */
+export async function setLessonComplete(userId: string, lessonId: number, complete: boolean): Promise<void> {
+	await db
+		.insert(lessonProgress)
+		.values({ userId, lessonId, completedAt: complete ? new Date() : null })
+		.onConflictDoUpdate({
+			target: [lessonProgress.userId, lessonProgress.lessonId],
+			set: { completedAt: complete ? sql`coalesce(${lessonProgress.completedAt}, now())` : null }
+		});
+}
+
+/** Stores the newest answer to one quiz (one row per learner, lesson and quiz). */
+export async function saveQuizAnswer(userId: string, lessonId: number, quizId: string, answer: string, correct: boolean): Promise<void> {
+	await db
+		.insert(quizAnswers)
+		.values({ userId, lessonId, quizId, answer, correct })
+		.onConflictDoUpdate({
+			target: [quizAnswers.userId, quizAnswers.lessonId, quizAnswers.quizId],
+			set: { answer, correct, answeredAt: sql`now()` }
+		});
+}
+
+/** Completes the lesson once every one of its quizzes has a right answer; returns whether it is complete now. */
+export async function completeIfQuizzesRight(userId: string, lessonId: number, quizIds: string[]): Promise<boolean> {
+	if (quizIds.length === 0) return false;
+	const right = await db
+		.select({ quizId: quizAnswers.quizId })
+		.from(quizAnswers)
+		.where(and(eq(quizAnswers.userId, userId), eq(quizAnswers.lessonId, lessonId), eq(quizAnswers.correct, true), inArray(quizAnswers.quizId, quizIds)));
+	if (right.length < quizIds.length) return false;
+	await setLessonComplete(userId, lessonId, true);
+	return true;
+}
+
+export type ResumePoint = { courseSlug: string; lessonSlug: string; lessonTitle: string };
+
+/** The lessons of a course the learner completed (by slug) and the published lesson they opened last. */
+export async function courseProgress(userId: string, courseId: number): Promise<{ completed: string[]; resume: ResumePoint | null }> {
+	const rows = await db
+		.select({ slug: lessons.slug, title: lessons.title, completedAt: lessonProgress.completedAt, courseSlug: courses.slug })
+		.from(lessonProgress)
+		.innerJoin(lessons, eq(lessonProgress.lessonId, lessons.id))
+		.innerJoin(modules, eq(lessons.moduleId, modules.id))
+		.innerJoin(courses, eq(modules.courseId, courses.id))
+		.where(and(eq(lessonProgress.userId, userId), eq(modules.courseId, courseId), eq(lessons.published, true)))
+		.orderBy(desc(lessonProgress.lastVisitedAt));
+	const last = rows[0];
+	return {
+		completed: rows.filter((r) => r.completedAt !== null).map((r) => r.slug),
+		resume: last ? { courseSlug: last.courseSlug, lessonSlug: last.slug, lessonTitle: last.title } : null
+	};
+}
+
+/** For the catalogue: per course slug, the published lesson the learner opened last. */
+export async function resumePoints(userId: string): Promise<Record<string, ResumePoint>> {
+	const rows = await db
+		.selectDistinctOn([courses.id], { courseSlug: courses.slug, lessonSlug: lessons.slug, lessonTitle: lessons.title })
+		.from(lessonProgress)
+		.innerJoin(lessons, eq(lessonProgress.lessonId, lessons.id))
+		.innerJoin(modules, eq(lessons.moduleId, modules.id))
+		.innerJoin(courses, eq(modules.courseId, courses.id))
+		.where(and(eq(lessonProgress.userId, userId), eq(lessons.published, true), isNotNull(lessonProgress.lastVisitedAt)))
+		.orderBy(courses.id, desc(lessonProgress.lastVisitedAt));
+	return Object.fromEntries(rows.map((r) => [r.courseSlug, r]));
+}

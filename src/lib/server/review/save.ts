@@ -1,0 +1,126 @@
+// A mentor's review of an Attempt: numbered pins on a frame, the rubric and critique, and an audited verdict override.
+import { and, eq, sql } from 'drizzle-orm';
+import { db } from '../db/index';
+import { assignments, attemptFrames, attempts, critiques, pins, users, verdictOverrides, verdicts, type AttemptVerdict } from '../db/schema';
+import { cleanRubric } from '../../attempts/rubric';
+import { notifyAttemptSql } from '../attempts/events';
+
+export interface Mentor {
+	id: string;
+	email: string;
+}
+
+export type Saved<T = object> = ({ ok: true } & T) | { ok: false; status: 400 | 404 | 409; message: string };
+
+const MAX_PIN_TEXT = 1000;
+const MAX_CRITIQUE = 10_000;
+const REVIEWABLE = ['graded', 'error'] as const;
+
+async function reviewable(attemptId: string): Promise<Saved> {
+	const row = await db.query.attempts.findFirst({ where: eq(attempts.id, attemptId), columns: { status: true } });
+	if (!row) return { ok: false, status: 404, message: 'There is no such attempt.' };
+	if (!(REVIEWABLE as readonly string[]).includes(row.status)) return { ok: false, status: 409, message: 'This attempt is still being graded. Try again in a moment.' };
+	return { ok: true };
+}
+
+export interface PinInput {
+	frameName: string;
+	x: number;
+	y: number;
+	text: string;
+}
+
+/** Adds the next numbered pin; x and y are fractions 0–1 of the frame as shown. */
+export async function addPin(mentor: Mentor, attemptId: string, input: PinInput): Promise<Saved<{ number: number }>> {
+	const text = input.text.trim();
+	if (!text) return { ok: false, status: 400, message: 'Write what the pin should say.' };
+	if (text.length > MAX_PIN_TEXT) return { ok: false, status: 400, message: `Keep a pin under ${MAX_PIN_TEXT} characters; put the rest in the critique.` };
+	if (![input.x, input.y].every((v) => Number.isFinite(v) && v >= 0 && v <= 1)) return { ok: false, status: 400, message: 'Place the pin on the photo.' };
+	const open = await reviewable(attemptId);
+	if (!open.ok) return open;
+	const frame = await db.query.attemptFrames.findFirst({ where: and(eq(attemptFrames.attemptId, attemptId), eq(attemptFrames.name, input.frameName)), columns: { id: true } });
+	if (!frame) return { ok: false, status: 400, message: 'That frame is not part of this attempt.' };
+	// two mentors pinning at once: the unique (attempt, number) index makes one of them try the next number
+	for (let tries = 0; tries < 3; tries++) {
+		try {
+			const [row] = await db
+				.insert(pins)
+				.values({
+					attemptId,
+					frameName: input.frameName,
+					number: sql`(select coalesce(max(${pins.number}), 0) + 1 from ${pins} where ${pins.attemptId} = ${attemptId})`,
+					x: input.x,
+					y: input.y,
+					text,
+					mentorId: mentor.id
+				})
+				.returning({ number: pins.number });
+			return { ok: true, number: row.number };
+		} catch (error) {
+			if ((error as { code?: string }).code !== '23505' && (error as { cause?: { code?: string } }).cause?.code !== '23505') throw error;
+		}
+	}
+	return { ok: false, status: 409, message: 'Another pin was added at the same moment. Please try again.' };
+}
+
+export async function removePin(attemptId: string, pinId: number): Promise<Saved> {
+	const gone = await db.delete(pins).where(and(eq(pins.attemptId, attemptId), eq(pins.id, pinId))).returning({ id: pins.id });
+	return gone.length ? { ok: true } : { ok: false, status: 404, message: 'That pin is already gone.' };
+}
+
+export interface ReviewInput {
+	text: string;
+	rubric: Record<string, unknown>;
+	/** 'keep' leaves the verdict as it is */
+	verdict: AttemptVerdict | 'keep';
+	reason: string;
+}
+
+export interface ReviewSaved {
+	first: boolean;
+	verdict: AttemptVerdict | null;
+	changed: boolean;
+	learner: { email: string; name: string };
+	assignment: string;
+}
+
+/**
+ * Saves the critique and rubric, changes the verdict when asked (with a reason, kept in verdict_overrides),
+ * and marks the attempt reviewed, all in one transaction.
+ */
+export async function saveReview(mentor: Mentor, attemptId: string, input: ReviewInput): Promise<Saved<ReviewSaved>> {
+	const text = input.text.trim();
+	const reason = input.reason.trim();
+	if (!text) return { ok: false, status: 400, message: 'Write the critique before sending it.' };
+	if (text.length > MAX_CRITIQUE) return { ok: false, status: 400, message: `The critique is over ${MAX_CRITIQUE} characters; please shorten it.` };
+	if (input.verdict !== 'keep' && !(verdicts as readonly string[]).includes(input.verdict)) return { ok: false, status: 400, message: 'Choose a verdict from the list.' };
+	const rubric = cleanRubric(input.rubric);
+
+	return db.transaction(async (tx) => {
+		const [row] = await tx
+			.select({ verdict: attempts.verdict, status: attempts.status, reviewState: attempts.reviewState, email: users.email, name: users.name, assignment: assignments.title })
+			.from(attempts)
+			.innerJoin(users, eq(attempts.userId, users.id))
+			.innerJoin(assignments, eq(attempts.assignmentId, assignments.id))
+			.where(eq(attempts.id, attemptId))
+			.for('update', { of: attempts });
+		if (!row) return { ok: false, status: 404, message: 'There is no such attempt.' } as const;
+		if (!(REVIEWABLE as readonly string[]).includes(row.status)) return { ok: false, status: 409, message: 'This attempt is still being graded. Try again in a moment.' } as const;
+		const changed = input.verdict !== 'keep' && input.verdict !== row.verdict;
+		if (changed && reason.length < 5) return { ok: false, status: 400, message: 'Say why you change the verdict: the learner reads it, and it is kept on record.' } as const;
+
+		const now = new Date();
+		await tx
+			.insert(critiques)
+			.values({ attemptId, mentorId: mentor.id, text, rubric })
+			.onConflictDoUpdate({ target: critiques.attemptId, set: { mentorId: mentor.id, text, rubric, updatedAt: now } });
+		const verdict = changed ? (input.verdict as AttemptVerdict) : row.verdict;
+		if (changed) {
+			await tx.insert(verdictOverrides).values({ attemptId, mentorId: mentor.id, mentorEmail: mentor.email, verdictBefore: row.verdict, verdictAfter: verdict!, reason });
+		}
+		await tx.update(attempts).set({ verdict, reviewState: 'reviewed', reviewedAt: now }).where(eq(attempts.id, attemptId));
+		await tx.execute(notifyAttemptSql(attemptId));
+		return { ok: true, first: row.reviewState === 'open', verdict, changed, learner: { email: row.email, name: row.name }, assignment: row.assignment } as const;
+	});
+}
+

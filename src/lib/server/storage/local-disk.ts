@@ -1,0 +1,40 @@
+// FileStore on the local disk under one root folder (STOPWISE_DATA_DIR); writes go to a temp name, then rename.
+import { randomBytes } from 'node:crypto';
+import { mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { dirname, join, resolve } from 'node:path';
+import { checkKey, type FileStore } from './store';
+
+export function createLocalDiskStore(root: string): FileStore {
+	const base = resolve(root);
+	const pathOf = (key: string) => join(base, ...checkKey(key));
+
+	return {
+		async put(key, data) {
+			const target = pathOf(key);
+			await mkdir(dirname(target), { recursive: true });
+			// rename is atomic within one file system: a crash mid-write leaves only a stray temp file
+			const temp = `${target}.tmp-${randomBytes(6).toString('hex')}`;
+			try {
+				await writeFile(temp, data);
+				await rename(temp, target);
+			} catch (error) {
+				await rm(temp, { force: true });
+				throw error;
+			}
+		},
+		async get(key) {
+			try {
+				return await readFile(pathOf(key));
+			} catch (error) {
+				if ((error as NodeJS.ErrnoException).code === 'ENOENT') return null;
+				throw error;
+			}
+		},
+		async delete(key) {
+			await rm(pathOf(key), { force: true });
+		},
+		async deletePrefix(prefix) {
+			await rm(pathOf(prefix), { recursive: true, force: true });
+		}
+	};
+}

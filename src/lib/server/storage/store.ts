@@ -1,0 +1,24 @@
+// The file store interface: what attempts need from any backend (local disk today, an object store later).
+
+/** Keys are slash-separated paths of safe segments, e.g. `attempts/<id>/0-original.jpg`. */
+export interface FileStore {
+	/** Writes the whole value; a reader never sees half a file under `key`. */
+	put(key: string, data: Uint8Array): Promise<void>;
+	/** The bytes, or null when nothing is stored under `key`. */
+	get(key: string): Promise<Buffer | null>;
+	/** Removes one key; removing a missing key is not an error. */
+	delete(key: string): Promise<void>;
+	/** Removes every key under `prefix/` (an attempt's folder); a missing prefix is not an error. */
+	deletePrefix(prefix: string): Promise<void>;
+}
+
+const SEGMENT = /^[A-Za-z0-9][A-Za-z0-9._-]{0,127}$/;
+
+/** Throws on a key that could leave the store (`..`, absolute paths, odd characters). */
+export function checkKey(key: string): string[] {
+	const parts = key.split('/');
+	if (parts.length === 0 || parts.length > 8 || !parts.every((p) => SEGMENT.test(p) && !p.includes('..'))) {
+		throw new RangeError(`invalid storage key: ${JSON.stringify(key)}`);
+	}
+	return parts;
+}

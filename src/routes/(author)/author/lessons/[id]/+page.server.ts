@@ -1,0 +1,97 @@
+// The lesson editor: Markdown with a live preview, drafts, publish/unpublish, settings, and deleting an unused draft.
+import { error, fail, redirect } from '@sveltejs/kit';
+import { requireRole } from '$lib/server/guards';
+import { deleteDraftLesson, openLessonForEditing, saveLessonSettings } from '$lib/server/authoring/lessons';
+import { publishDraft, saveDraft, unpublishLesson } from '$lib/server/authoring/versions';
+import { renderLessonMarkdown } from '$lib/server/authoring/render';
+import { checkSpecText } from '$lib/server/authoring/assignments';
+import { draftSchema, fieldErrors, settingsSchema } from '$lib/forms/authoring';
+import type { Actions, PageServerLoad } from './$types';
+
+const notices: Record<string, string> = {
+	created: 'Lesson created. Write it below; it stays unpublished until you publish it.',
+	restored: 'Version restored as the draft. Publish it to show it to learners.'
+};
+
+function lessonIdOf(params: { id: string }): number {
+	const id = Number(params.id);
+	if (!Number.isInteger(id) || id <= 0) error(404, { message: 'There is no such lesson.' });
+	return id;
+}
+
+export const load: PageServerLoad = async (event) => {
+	requireRole(event, 'author');
+	const found = await openLessonForEditing(lessonIdOf(event.params));
+	if (!found) error(404, { message: 'There is no such lesson.' });
+	const { lesson, module, course, draft, assignments, unpublishedChanges } = found;
+	return {
+		lesson: {
+			id: lesson.id,
+			slug: lesson.slug,
+			published: lesson.published,
+			source: lesson.source,
+			contentPath: lesson.contentPath,
+			minutes: lesson.minutes,
+			freePreview: lesson.freePreview
+		},
+		module: { title: module.title },
+		course: { slug: course.slug, title: course.title },
+		draft: { title: draft.title, summary: draft.summary, body: draft.body, savedAt: draft.savedAt?.toISOString() ?? null },
+		unpublishedChanges,
+		preview: await renderLessonMarkdown(draft.body),
+		// what <AssignmentCard> reads in the preview (no uploads from here)
+		assignments: assignments.map((a) => {
+			const described = checkSpecText(JSON.stringify(a.spec));
+			return { id: a.id, slug: a.slug, title: a.title, brief: a.brief, frames: described.frames, criteria: described.criteria };
+		}),
+		// tells the Quiz widget not to store answers given in the preview
+		lessonPreview: true,
+		notice: notices[event.url.searchParams.get('notice') ?? ''] ?? null
+	};
+};
+
+async function readDraft(request: Request) {
+	const form = await request.formData();
+	const field = (name: string) => String(form.get(name) ?? '');
+	return { parsed: draftSchema.safeParse({ title: field('title'), summary: field('summary'), body: field('body'), note: field('note') }) };
+}
+
+export const actions = {
+	save: async (event) => {
+		const user = requireRole(event, 'author');
+		const { parsed } = await readDraft(event.request);
+		if (!parsed.success) return fail(400, { draft: { ok: false, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error) } });
+		const saved = await saveDraft(lessonIdOf(event.params), user.id, parsed.data);
+		if (!saved.ok) return fail(400, { draft: { ok: false, message: saved.message } });
+		return { draft: { ok: true, message: saved.message } };
+	},
+	publish: async (event) => {
+		const user = requireRole(event, 'author');
+		const { parsed } = await readDraft(event.request);
+		if (!parsed.success) return fail(400, { draft: { ok: false, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error) } });
+		const published = await publishDraft(lessonIdOf(event.params), user.id, parsed.data);
+		if (!published.ok) return fail(400, { draft: { ok: false, message: published.message, problems: published.problems ?? [] } });
+		return { draft: { ok: true, message: published.message } };
+	},
+	unpublish: async (event) => {
+		requireRole(event, 'author');
+		const done = await unpublishLesson(lessonIdOf(event.params));
+		if (!done.ok) return fail(400, { state: { ok: false, message: done.message } });
+		return { state: { ok: true, message: done.message } };
+	},
+	settings: async (event) => {
+		const user = requireRole(event, 'author');
+		const parsed = settingsSchema.safeParse(Object.fromEntries(await event.request.formData()));
+		if (!parsed.success) return fail(400, { settings: { ok: false, message: 'Settings not saved.', errors: fieldErrors(parsed.error) } });
+		const saved = await saveLessonSettings(lessonIdOf(event.params), user.id, parsed.data);
+		if (!saved.ok) return fail(400, { settings: { ok: false, message: saved.message } });
+		return { settings: { ok: true, message: saved.message } };
+	},
+	delete: async (event) => {
+		requireRole(event, 'author');
+		const found = await openLessonForEditing(lessonIdOf(event.params));
+		const done = await deleteDraftLesson(lessonIdOf(event.params));
+		if (!done.ok) return fail(400, { state: { ok: false, message: done.message } });
+		redirect(303, `/author?deleted=${encodeURIComponent(found?.draft.title ?? 'the lesson')}`);
+	}
+} satisfies Actions;

@@ -1,0 +1,32 @@
+// A lesson's version history, newest first, with restore (which saves a copy as the draft; nothing is overwritten).
+import { error, fail, redirect } from '@sveltejs/kit';
+import { requireRole } from '$lib/server/guards';
+import { listVersions, restoreVersion } from '$lib/server/authoring/versions';
+import type { Actions, PageServerLoad } from './$types';
+
+function lessonIdOf(params: { id: string }): number {
+	const id = Number(params.id);
+	if (!Number.isInteger(id) || id <= 0) error(404, { message: 'There is no such lesson.' });
+	return id;
+}
+
+export const load: PageServerLoad = async (event) => {
+	requireRole(event, 'author');
+	const found = await listVersions(lessonIdOf(event.params));
+	if (!found) error(404, { message: 'There is no such lesson.' });
+	return {
+		lesson: { id: found.lesson.id, title: found.lesson.title, source: found.lesson.source, contentPath: found.lesson.contentPath },
+		versions: found.versions.map((v) => ({ ...v, createdAt: v.createdAt.toISOString() }))
+	};
+};
+
+export const actions = {
+	restore: async (event) => {
+		const user = requireRole(event, 'author');
+		const versionId = Number((await event.request.formData()).get('versionId'));
+		if (!Number.isInteger(versionId) || versionId <= 0) return fail(400, { message: 'Choose a version to restore.' });
+		const restored = await restoreVersion(lessonIdOf(event.params), versionId, user.id);
+		if (!restored.ok) return fail(400, { message: restored.message });
+		redirect(303, `/author/lessons/${event.params.id}?notice=restored`);
+	}
+} satisfies Actions;

@@ -1,0 +1,16 @@
+// GET the mentor's review queue as JSON: filters (status, course, assignment, age), sort and cursor pages.
+import { json } from '@sveltejs/kit';
+import { checkApiAccess } from '$lib/server/guards';
+import { readQueueParams } from '$lib/attempts/queue-params';
+import { fetchReviewQueue } from '$lib/server/review/queue-query';
+import type { RequestHandler } from './$types';
+
+export const GET: RequestHandler = async ({ locals, url }) => {
+	const access = checkApiAccess(locals, 'mentor');
+	if (!access.ok) return access.response;
+	const params = readQueueParams(url.searchParams);
+	const page = await fetchReviewQueue(params);
+	if (!page.ok) return json({ error: 'bad-cursor', message: page.message }, { status: 400 });
+	const { cursor: _cursor, ...query } = params;
+	return json({ query, attempts: page.rows, nextCursor: page.nextCursor }, { headers: { 'cache-control': 'no-store' } });
+};

@@ -1,0 +1,136 @@
+// A learner uploads a pair → sees the verdict → a mentor pins a comment and overrides → the learner reads the critique and gets the e-mail.
+import { expect, test, type Browser, type Page } from '@playwright/test';
+import { readFileSync } from 'node:fs';
+import { rm } from 'node:fs/promises';
+import { join } from 'node:path';
+import postgres from 'postgres';
+import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
+
+type Demo = { role: string; email: string; password: string };
+const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
+const account = (role: string) => demo.find((d) => d.role === role)!;
+
+const COURSE = 'daylight-flash-for-action';
+const LESSON = 'off-the-axis';
+const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:54329/stopwise', { max: 2, onnotice: () => {} });
+let learnerId = '';
+let courseId = 0;
+
+async function signIn(page: Page, role: string, redirectTo = '/') {
+	const { email, password } = account(role);
+	await page.goto(`/signin?redirectTo=${encodeURIComponent(redirectTo)}`);
+	await page.getByLabel('E-mail', { exact: true }).fill(email);
+	await page.getByLabel('Password', { exact: true }).fill(password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await expect(page).toHaveURL(new RegExp(`${redirectTo.replace(/[?]/g, '\\?')}$`));
+}
+
+async function asRole(browser: Browser, role: string, path: string) {
+	const context = await browser.newContext();
+	const page = await context.newPage();
+	await signIn(page, role, path);
+	return { page, close: () => context.close() };
+}
+
+/** A pair for "Off the axis", made here with sharp and Exif: reference 1/500 s, lit 1/1500 s (≈1.6 stops under), flash fired. */
+async function framePair() {
+	const reference = await makeFrame({ width: 900, height: 600, subject: { stops: 0 }, background: { stops: 0.5 }, exif: { ...REFERENCE_EXIF } });
+	const lit = await makeFrame({
+		width: 900,
+		height: 600,
+		subject: { stops: 0 },
+		background: { stops: 0.5 - Math.log2(3) },
+		exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash: 0x19 }
+	});
+	return { reference, lit };
+}
+
+async function removeAttempts() {
+	const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
+	const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
+	await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
+}
+
+test.beforeAll(async () => {
+	[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${account('learner').email}`;
+	[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
+	// the demo learner is not enrolled (payments are another feature): enrol directly for this test
+	await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
+	await removeAttempts();
+});
+
+test.afterAll(async () => {
+	await removeAttempts();
+	await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
+	await sql.end();
+});
+
+test('upload → verdict → mentor pin and override → critique and e-mail', async ({ page, browser }) => {
+	test.setTimeout(120_000);
+	const { reference, lit } = await framePair();
+
+	await signIn(page, 'learner', `/courses/${COURSE}/${LESSON}`);
+	const card = page.getByRole('region', { name: 'Assignment' });
+	await expect(card.getByTestId('assignment-criteria').getByRole('listitem')).toHaveCount(4);
+	await card.getByRole('link', { name: 'Upload your frames' }).click();
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Off the axis');
+
+	// the browser refuses a wrong file and a missing frame before sending anything
+	await page.getByTestId('frame-input-reference').setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not a photo') });
+	await expect(page.getByTestId('frame-error-reference')).toContainText('not a photo we can read');
+	await page.getByTestId('frame-input-reference').setInputFiles({ name: 'reference.jpg', mimeType: 'image/jpeg', buffer: reference });
+	await expect(page.getByTestId('frame-error-reference')).toHaveCount(0);
+	await page.getByTestId('send-attempt').click();
+	await expect(page.getByRole('alert')).toHaveText('Add the “lit” frame before sending.');
+
+	await page.getByTestId('frame-input-lit').setInputFiles({ name: 'lit.jpg', mimeType: 'image/jpeg', buffer: lit });
+	await expect(page.getByTestId('subject-box')).toBeVisible();
+	await page.getByTestId('send-attempt').click();
+
+	await expect(page).toHaveURL(/\/attempts\/[0-9a-f-]{36}$/);
+	const attemptUrl = page.url();
+	// the status updates in place, then the verdict appears
+	await expect(page.getByTestId('verdict-badge').first()).toHaveText('Passed', { timeout: 30_000 });
+	await expect(page.getByTestId('criteria').getByTestId('criterion-verdict')).toHaveText(['Met', 'Met', 'Met', 'Met']);
+	await expect(page.getByTestId('criterion-ambient-under')).toContainText('1.6 stops');
+	await expect(page.getByTestId('exif-panel').nth(1)).toContainText('1/1500 s');
+	await expect(page.getByTestId('histogram')).toHaveCount(2);
+	await expect(page.getByTestId('stops-chart')).toBeVisible();
+
+	// the mentor's side
+	const mentor = await asRole(browser, 'mentor', '/mentor');
+	const row = mentor.page.getByTestId('review-table').getByRole('row').filter({ hasText: 'Robin Okafor (demo)' }).filter({ hasText: 'Off the axis' });
+	await row.first().getByRole('link', { name: 'Robin Okafor (demo)', exact: true }).click();
+	await expect(mentor.page.getByRole('heading', { level: 1 })).toHaveText('Off the axis');
+	const litPhoto = mentor.page.getByRole('region', { name: 'The lit frame' }).getByTestId('photo-frame');
+	await litPhoto.click({ position: { x: 60, y: 40 } });
+	await mentor.page.getByTestId('pin-text-lit').fill('The key sits too close to the lens axis here.');
+	await mentor.page.getByTestId('pin-save-lit').click();
+	await expect(mentor.page.getByRole('region', { name: 'The lit frame' }).getByTestId('pin-1')).toBeVisible();
+	await mentor.page.getByTestId('critique-input').fill('Good ambient control. Move the light further round: 45 degrees or more from the axis.');
+	await mentor.page.getByTestId('verdict-select').selectOption('fail');
+	await mentor.page.getByTestId('override-reason').fill('The light is only about 20 degrees off the camera axis.');
+	await mentor.page.getByTestId('send-review').click();
+	await expect(mentor.page.getByRole('status').filter({ hasText: 'Review sent.' })).toContainText('The learner has been e-mailed.');
+	await mentor.close();
+
+	// the learner reads the critique
+	await page.goto(attemptUrl);
+	await expect(page.getByTestId('critique-text')).toHaveText('Good ambient control. Move the light further round: 45 degrees or more from the axis.');
+	await expect(page.getByTestId('pin-notes')).toContainText('The key sits too close to the lens axis here.');
+	await expect(page.getByTestId('override-note')).toContainText('The light is only about 20 degrees off the camera axis.');
+	await expect(page.getByTestId('pin-1')).toBeVisible();
+	await expect(page.getByTestId('verdict-badge').first()).toHaveText('Not yet');
+
+	// and the e-mail arrived in the demo mailbox
+	const admin = await asRole(browser, 'admin', '/admin/mailbox');
+	await admin.page
+		.getByRole('listitem')
+		.filter({ hasText: account('learner').email })
+		.filter({ hasText: "Your mentor's critique: Off the axis" })
+		.first()
+		.getByRole('link')
+		.click();
+	await expect(admin.page.getByTestId('mail-text')).toContainText('The mentor changed the verdict to: not yet.');
+	await admin.close();
+});
