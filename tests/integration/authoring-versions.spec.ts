@@ -13,7 +13,7 @@ import { moveLesson } from '$lib/server/authoring/outline';
 import { stripFrontmatter } from '$lib/server/authoring/file-body';
 import { readFile } from 'node:fs/promises';
 import { load as lessonLoad, actions as lessonActions } from '../../src/routes/(learn)/courses/[course]/[lesson]/+page.server';
-import { actions as editorActions } from '../../src/routes/(author)/author/lessons/[id]/+page.server';
+import { actions as editorActions } from '../../src/routes/(author)/author/lessons/[id=integer]/+page.server';
 import { demo, demoAccount, freshLearner, removeFreshPeople, signedInCookies, userIdOf } from './support/people';
 import { failureOf, makeEvent, throughHooks, valueOf } from './support/request-event';
 

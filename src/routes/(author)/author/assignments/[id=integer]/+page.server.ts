@@ -5,15 +5,10 @@ import { checkSpecText, openAssignment, saveAssignment } from '$lib/server/autho
 import { assignmentFieldsSchema, fieldErrors } from '$lib/forms/authoring';
 import type { Actions, PageServerLoad } from './$types';
 
-function assignmentIdOf(params: { id: string }): number {
-	const id = Number(params.id);
-	if (!Number.isInteger(id) || id <= 0) error(404, { message: 'There is no such assignment.' });
-	return id;
-}
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'author');
-	const found = await openAssignment(assignmentIdOf(event.params));
+	const found = await openAssignment(Number(event.params.id));
 	if (!found) error(404, { message: 'There is no such assignment.' });
 	const { assignment, lesson, course } = found;
 	const spec = JSON.stringify(assignment.spec, null, 2);
@@ -33,7 +28,7 @@ export const actions = {
 		const values = { title: String(form.get('title') ?? ''), brief: String(form.get('brief') ?? ''), spec: String(form.get('spec') ?? '') };
 		const parsed = assignmentFieldsSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { values, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error), specErrors: null });
-		const saved = await saveAssignment(assignmentIdOf(event.params), user.id, parsed.data);
+		const saved = await saveAssignment(Number(event.params.id), user.id, parsed.data);
 		if (!saved.ok) return fail(400, { values, message: saved.message, errors: saved.field ? { [saved.field]: saved.message } : {}, specErrors: saved.specErrors ?? null });
 		return { values, message: saved.message, ok: true };
 	}

@@ -13,15 +13,10 @@ const notices: Record<string, string> = {
 	restored: 'Version restored as the draft. Publish it to show it to learners.'
 };
 
-function lessonIdOf(params: { id: string }): number {
-	const id = Number(params.id);
-	if (!Number.isInteger(id) || id <= 0) error(404, { message: 'There is no such lesson.' });
-	return id;
-}
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'author');
-	const found = await openLessonForEditing(lessonIdOf(event.params));
+	const found = await openLessonForEditing(Number(event.params.id));
 	if (!found) error(404, { message: 'There is no such lesson.' });
 	const { lesson, module, course, draft, assignments, unpublishedChanges } = found;
 	return {
@@ -61,7 +56,7 @@ export const actions = {
 		const user = requireRole(event, 'author');
 		const { parsed } = await readDraft(event.request);
 		if (!parsed.success) return fail(400, { draft: { ok: false, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error) } });
-		const saved = await saveDraft(lessonIdOf(event.params), user.id, parsed.data);
+		const saved = await saveDraft(Number(event.params.id), user.id, parsed.data);
 		if (!saved.ok) return fail(400, { draft: { ok: false, message: saved.message } });
 		return { draft: { ok: true, message: saved.message } };
 	},
@@ -69,13 +64,13 @@ export const actions = {
 		const user = requireRole(event, 'author');
 		const { parsed } = await readDraft(event.request);
 		if (!parsed.success) return fail(400, { draft: { ok: false, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error) } });
-		const published = await publishDraft(lessonIdOf(event.params), user.id, parsed.data);
+		const published = await publishDraft(Number(event.params.id), user.id, parsed.data);
 		if (!published.ok) return fail(400, { draft: { ok: false, message: published.message, problems: published.problems ?? [] } });
 		return { draft: { ok: true, message: published.message } };
 	},
 	unpublish: async (event) => {
 		requireRole(event, 'author');
-		const done = await unpublishLesson(lessonIdOf(event.params));
+		const done = await unpublishLesson(Number(event.params.id));
 		if (!done.ok) return fail(400, { state: { ok: false, message: done.message } });
 		return { state: { ok: true, message: done.message } };
 	},
@@ -83,14 +78,14 @@ export const actions = {
 		const user = requireRole(event, 'author');
 		const parsed = settingsSchema.safeParse(Object.fromEntries(await event.request.formData()));
 		if (!parsed.success) return fail(400, { settings: { ok: false, message: 'Settings not saved.', errors: fieldErrors(parsed.error) } });
-		const saved = await saveLessonSettings(lessonIdOf(event.params), user.id, parsed.data);
+		const saved = await saveLessonSettings(Number(event.params.id), user.id, parsed.data);
 		if (!saved.ok) return fail(400, { settings: { ok: false, message: saved.message } });
 		return { settings: { ok: true, message: saved.message } };
 	},
 	delete: async (event) => {
 		requireRole(event, 'author');
-		const found = await openLessonForEditing(lessonIdOf(event.params));
-		const done = await deleteDraftLesson(lessonIdOf(event.params));
+		const found = await openLessonForEditing(Number(event.params.id));
+		const done = await deleteDraftLesson(Number(event.params.id));
 		if (!done.ok) return fail(400, { state: { ok: false, message: done.message } });
 		redirect(303, `/author?deleted=${encodeURIComponent(found?.draft.title ?? 'the lesson')}`);
 	}

@@ -21,15 +21,10 @@ const STARTER_SPEC = JSON.stringify(
 	2
 );
 
-function lessonIdOf(params: { id: string }): number {
-	const id = Number(params.id);
-	if (!Number.isInteger(id) || id <= 0) error(404, { message: 'There is no such lesson.' });
-	return id;
-}
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'author');
-	const lesson = await db.query.lessons.findFirst({ where: eq(lessons.id, lessonIdOf(event.params)) });
+	const lesson = await db.query.lessons.findFirst({ where: eq(lessons.id, Number(event.params.id)) });
 	if (!lesson) error(404, { message: 'There is no such lesson.' });
 	return { lesson: { id: lesson.id, title: lesson.title }, spec: STARTER_SPEC, check: checkSpecText(STARTER_SPEC) };
 };
@@ -42,7 +37,7 @@ export const actions = {
 		const values = { slug: field('slug'), title: field('title'), brief: field('brief'), spec: field('spec') };
 		const parsed = newAssignmentSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { values, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error), specErrors: null });
-		const created = await createAssignment(lessonIdOf(event.params), user.id, parsed.data);
+		const created = await createAssignment(Number(event.params.id), user.id, parsed.data);
 		if (!created.ok) return fail(400, { values, message: created.message, errors: created.field ? { [created.field]: created.message } : {}, specErrors: created.specErrors ?? null });
 		redirect(303, `/author/assignments/${created.assignmentId}?notice=created`);
 	}

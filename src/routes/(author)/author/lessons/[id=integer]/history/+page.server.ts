@@ -4,15 +4,10 @@ import { requireRole } from '$lib/server/guards';
 import { listVersions, restoreVersion } from '$lib/server/authoring/versions';
 import type { Actions, PageServerLoad } from './$types';
 
-function lessonIdOf(params: { id: string }): number {
-	const id = Number(params.id);
-	if (!Number.isInteger(id) || id <= 0) error(404, { message: 'There is no such lesson.' });
-	return id;
-}
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'author');
-	const found = await listVersions(lessonIdOf(event.params));
+	const found = await listVersions(Number(event.params.id));
 	if (!found) error(404, { message: 'There is no such lesson.' });
 	return {
 		lesson: { id: found.lesson.id, title: found.lesson.title, source: found.lesson.source, contentPath: found.lesson.contentPath },
@@ -25,7 +20,7 @@ export const actions = {
 		const user = requireRole(event, 'author');
 		const versionId = Number((await event.request.formData()).get('versionId'));
 		if (!Number.isInteger(versionId) || versionId <= 0) return fail(400, { message: 'Choose a version to restore.' });
-		const restored = await restoreVersion(lessonIdOf(event.params), versionId, user.id);
+		const restored = await restoreVersion(Number(event.params.id), versionId, user.id);
 		if (!restored.ok) return fail(400, { message: restored.message });
 		redirect(303, `/author/lessons/${event.params.id}?notice=restored`);
 	}
