@@ -14,6 +14,7 @@ const mode = process.argv[2] ?? 'start';
 const env = { ...process.env };
 const children = [];
 let stopDatabase = () => {};
+let stopsDatabase = false;
 
 const log = (msg) => console.log(`\x1b[33m▸\x1b[0m ${msg}`);
 const fail = (msg) => {
@@ -127,6 +128,7 @@ async function startLocalCluster(dbName) {
 		if (pgCtl(['-o', opts, '-l', logFile, '-w', '-t', '60', 'start'], { stdio: ['ignore', 'ignore', 'inherit'] }) !== 0) {
 			fail(`PostgreSQL did not start; see ${logFile}`);
 		}
+		stopsDatabase = true;
 		stopDatabase = () => {
 			log('stopping PostgreSQL');
 			pgCtl(['-m', 'fast', '-w', 'stop'], { stdio: 'ignore' });
@@ -216,12 +218,19 @@ function serve() {
 	children.push(app);
 	app.on('exit', (code) => shutdown(code ?? 0));
 	const demo = JSON.parse(readFileSync(join(root, 'scripts', 'demo-accounts.json'), 'utf8'));
-	setTimeout(() => {
+	whenHealthy(`http://127.0.0.1:${port}/api/health`, () => {
 		console.log(`\n  Stopwise is running at \x1b[1m${env.ORIGIN}\x1b[0m (listening on ${host}:${port})\n`);
 		console.log('  Demo sign-ins (invented people, demo only):');
 		for (const a of demo) console.log(`    ${a.role.padEnd(8)} ${a.email.padEnd(34)} ${a.password}`);
-		console.log('\n  Ctrl-C stops the app and the database.\n');
-	}, 500);
+		console.log(`\n  Ctrl-C stops the app${stopsDatabase ? ' and the database' : ''}.\n`);
+	});
+}
+
+/** Calls `ready` once the app answers its health check (polled; the app may take a moment to listen). */
+function whenHealthy(url, ready, triesLeft = 120) {
+	fetch(url)
+		.then((r) => (r.ok ? ready() : Promise.reject(new Error(String(r.status)))))
+		.catch(() => (triesLeft > 0 ? setTimeout(() => whenHealthy(url, ready, triesLeft - 1), 250) : log(`the app did not answer ${url}`)));
 }
 
 async function main() {
