@@ -1,9 +1,8 @@
 // Every API route under src/routes/api, found on disk, answered for every kind of visitor.
-import { readdirSync, statSync } from 'node:fs';
-import { join, relative, resolve, sep } from 'node:path';
 import { describe, expect, test } from 'vitest';
 import { makeEvent, throughHooks } from './support/request-event';
 import { demoAccount, signedInCookies } from './support/people';
+import { httpMethods, listApiRoutes } from './support/api-routes';
 
 type Who = 'anonymous' | 'learner' | 'mentor' | 'author' | 'admin';
 const everyone: Who[] = ['anonymous', 'learner', 'mentor', 'author', 'admin'];
@@ -38,26 +37,7 @@ const expectations: Record<string, Record<string, Expectation>> = {
 	'/api/v1/payments/webhook': { POST: { status: { anonymous: 400, learner: 400, mentor: 400, author: 400, admin: 400 } } }
 };
 
-const apiRoot = resolve('src/routes/api');
-const methods = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'OPTIONS', 'HEAD'];
-
-function findServerRoutes(dir: string): string[] {
-	const found: string[] = [];
-	for (const name of readdirSync(dir)) {
-		const full = join(dir, name);
-		if (statSync(full).isDirectory()) found.push(...findServerRoutes(full));
-		else if (name === '+server.ts' || name === '+server.js') found.push(full);
-	}
-	return found;
-}
-
-/** `src/routes/api/v1/(x)/me/+server.ts` → `/api/v1/me` (groups do not appear in URLs). */
-function routeIdOf(file: string): string {
-	const parts = relative(apiRoot, file).split(sep).slice(0, -1).filter((p) => !/^\(.*\)$/.test(p));
-	return ['/api', ...parts].join('/');
-}
-
-const routes = findServerRoutes(apiRoot).map((file) => ({ file, id: routeIdOf(file) }));
+const routes = listApiRoutes();
 
 describe('API authorisation matrix', () => {
 	test('the walk finds the known routes (guards the walk itself)', () => {
@@ -74,7 +54,7 @@ describe('API authorisation matrix', () => {
 	for (const { file, id } of routes) {
 		test(`${id}: each exported method is listed and answers each visitor as expected`, async () => {
 			const mod: Record<string, unknown> = await import(/* @vite-ignore */ file);
-			const exported = methods.filter((m) => typeof mod[m] === 'function');
+			const exported = httpMethods.filter((m) => typeof mod[m] === 'function');
 			const listed = Object.keys(expectations[id] ?? {});
 			expect(exported.sort(), `${id}: methods exported vs. listed`).toEqual(listed.sort());
 

@@ -1,7 +1,5 @@
 // Every paid route refuses a learner who has not enrolled: members-only lesson pages (and their actions), and every
 // API route whose path names attempts or uploads. Free previews stay open to everyone, signed in or not.
-import { readdirSync, statSync } from 'node:fs';
-import { join, relative, resolve, sep } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
 import sharp from 'sharp';
@@ -13,6 +11,7 @@ import * as learnLayout from '../../src/routes/(learn)/+layout.server';
 import * as lessonPage from '../../src/routes/(learn)/courses/[course]/[lesson]/+page.server';
 import { failureOf, makeEvent, throughHooks, type Outcome, type TestCookies } from './support/request-event';
 import { demoAccount, freshLearner, removeFreshPeople, signedInCookies } from './support/people';
+import { httpMethods, listApiRoutes } from './support/api-routes';
 
 type LessonRow = { course: string; courseId: number; lesson: string; title: string; freePreview: boolean };
 let allLessons: LessonRow[] = [];
@@ -110,22 +109,7 @@ function refused(outcome: Outcome<unknown>): boolean {
 
 // ---- API routes whose path names attempts or uploads ----
 
-const apiRoot = resolve('src/routes/api');
-const methods = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'];
-
-function findServerRoutes(dir: string): string[] {
-	const found: string[] = [];
-	for (const name of readdirSync(dir)) {
-		const full = join(dir, name);
-		if (statSync(full).isDirectory()) found.push(...findServerRoutes(full));
-		else if (name === '+server.ts' || name === '+server.js') found.push(full);
-	}
-	return found;
-}
-
-const paidApiRoutes = findServerRoutes(apiRoot)
-	.map((file) => ({ file, parts: relative(apiRoot, file).split(sep).slice(0, -1).filter((p) => !/^\(.*\)$/.test(p)) }))
-	.filter(({ parts }) => parts.some((p) => /attempts|uploads/.test(p)));
+const paidApiRoutes = listApiRoutes().filter(({ parts }) => parts.some((p) => /attempts|uploads/.test(p)));
 
 /** A small real JPEG, so an upload route cannot refuse it for being no photo before it checks enrolment. */
 async function tinyJpeg(): Promise<File> {
@@ -135,11 +119,11 @@ async function tinyJpeg(): Promise<File> {
 
 describe('API routes for attempts and uploads', () => {
 	test('the walk finds the upload route (guards the walk itself)', () => {
-		expect(paidApiRoutes.map((r) => `/api/${r.parts.join('/')}`)).toContain('/api/v1/attempts');
+		expect(paidApiRoutes.map((r) => r.id)).toContain('/api/v1/attempts');
 	});
 
 	for (const route of paidApiRoutes) {
-		const id = `/api/${route.parts.join('/')}`;
+		const id = route.id;
 		test(`${id}: every method refuses a non-enrolled learner`, async () => {
 			const [assignment] = await db
 				.select({ slug: assignments.slug, id: assignments.id })
@@ -158,7 +142,7 @@ describe('API routes for attempts and uploads', () => {
 				})
 				.join('/');
 			const mod: Record<string, unknown> = await import(/* @vite-ignore */ route.file);
-			const exported = methods.filter((m) => typeof mod[m] === 'function');
+			const exported = httpMethods.filter((m) => typeof mod[m] === 'function');
 			expect(exported.length, `${id} exports a handler`).toBeGreaterThan(0);
 			for (const method of exported) {
 				const form = new FormData();
