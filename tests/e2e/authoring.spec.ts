@@ -35,7 +35,7 @@ test('an author writes, previews and publishes a lesson; a learner uses its widg
 	const module = page.getByTestId('author-module').filter({ hasText: 'Bringing your own light' });
 	await module.getByRole('link', { name: 'New lesson' }).click();
 	await page.getByLabel('Title').fill(title);
-	await page.getByLabel('Free preview').check();
+	await page.getByLabel('Open lesson').check();
 	await page.getByRole('button', { name: 'Create lesson' }).click();
 	await expect(page).toHaveURL(/\/author\/lessons\/\d+\?notice=created$/);
 	const editorUrl = page.url().replace(/\?.*$/, '');
@@ -54,7 +54,7 @@ test('an author writes, previews and publishes a lesson; a learner uses its widg
 	expect(lessonHref).toMatch(/^\/courses\/daylight-flash-for-action\/reach-at-the-dock-/);
 	await signOut(page);
 
-	// a learner opens it (a free preview, so no enrolment is needed) and drags the distance slider
+	// a learner opens it (an open lesson, so no enrolment is needed) and drags the distance slider
 	await signInAs(page, 'learner', '/courses');
 	await page.goto(lessonHref!);
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText(title);

@@ -74,7 +74,7 @@ test('a declined card leaves the learner without access and with a clear message
 	await expect(page.getByText('EV100 = log2')).toHaveCount(0);
 });
 
-test('signed out, the course page offers sign-in; free previews still open', async ({ page }) => {
+test('signed out, the course page offers sign-in; open lessons still open', async ({ page }) => {
 	await page.goto(course);
 	await expect(page.getByRole('link', { name: 'Sign in to enrol' })).toHaveAttribute('href', `/signin?redirectTo=${encodeURIComponent(course)}`);
 	await page.goto(`${course}/what-a-stop-is`);

@@ -192,7 +192,7 @@ describe('a lesson from a content file, edited in the browser', () => {
 describe('lesson completion', () => {
 	afterAll(removeFreshPeople);
 
-	test('"Mark complete" and its undo, for a signed-in learner on a free preview', async () => {
+	test('"I\'ve finished this lesson" and its undo, for a signed-in learner on an open lesson', async () => {
 		const cookies = await signedInCookies((await freshLearner()).email);
 		const params = { course: COURSE, lesson: 'guide-numbers' };
 		const act = (done: string) =>

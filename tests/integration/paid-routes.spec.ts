@@ -1,5 +1,5 @@
 // Every paid route refuses a learner who has not enrolled: members-only lesson pages (and their actions), and every
-// API route whose path names attempts or uploads. Free previews stay open to everyone, signed in or not.
+// API route whose path names attempts or uploads. Open lessons stay open to everyone, signed in or not.
 import { randomBytes } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
 import sharp from 'sharp';
@@ -45,7 +45,7 @@ async function openLesson(l: LessonRow, cookies: TestCookies | undefined): Promi
 }
 
 describe('lesson pages', () => {
-	test('the demo has members-only lessons and free previews to check (guards the walk itself)', () => {
+	test('the demo has members-only lessons and open lessons to check (guards the walk itself)', () => {
 		expect(paid.length).toBeGreaterThanOrEqual(10);
 		expect(previews.map((l) => l.lesson)).toContain('what-a-stop-is');
 	});
@@ -64,7 +64,7 @@ describe('lesson pages', () => {
 		}
 	});
 
-	test('free previews open signed out and for a non-enrolled learner', async () => {
+	test('open lessons open signed out and for a non-enrolled learner', async () => {
 		for (const l of previews) {
 			for (const cookies of [undefined, learner.cookies]) {
 				const outcome = await openLesson(l, cookies);
@@ -87,7 +87,7 @@ describe('lesson pages', () => {
 
 	test('every form action of the lesson page refuses a non-enrolled learner on a members-only lesson', async () => {
 		const actions = Object.entries((lessonPage as { actions?: Record<string, (e: unknown) => unknown> }).actions ?? {});
-		// guards the walk: the page has actions (mark complete) today; a page without any has nothing to refuse
+		// guards the walk: the page has actions (I've finished this lesson) today; a page without any has nothing to refuse
 		expect(actions.length).toBeGreaterThan(0);
 		for (const [name, action] of actions) {
 			for (const l of paid.slice(0, 3)) {

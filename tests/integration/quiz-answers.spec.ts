@@ -9,7 +9,7 @@ import { makeEvent, throughHooks, valueOf, type TestCookies } from './support/re
 import { freshLearner, removeFreshPeople, signedInCookies } from './support/people';
 
 const COURSE = 'daylight-flash-for-action';
-const PREVIEW = `/courses/${COURSE}/guide-numbers`; // free preview, quizzes gn-1 and gn-2
+const PREVIEW = `/courses/${COURSE}/guide-numbers`; // open lesson, quizzes gn-1 and gn-2
 const MEMBERS = `/courses/${COURSE}/inverse-square`; // members only, quizzes isq-1, isq-2, isq-3
 
 async function post(body: unknown, cookies?: TestCookies, raw = false) {

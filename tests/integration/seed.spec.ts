@@ -27,6 +27,21 @@ describe('demo seed', () => {
 		expect(first.counts.users).toBe(4);
 	});
 
+	test('a demo person whose invented name changed is renamed in a kept database; other names are left alone', async () => {
+		await seedDemo(db);
+		await db.execute(sql`update users set name = 'Old Invented Name (demo)' where email = 'admin@harborlane.example'`);
+		await db.execute(sql`update users set name = 'Chosen by the learner' where email = 'learner@harborlane.example'`);
+		try {
+			await seedDemo(db);
+			const rows = await db.execute<{ email: string; name: string }>(sql`select email, name from users order by email`);
+			const byEmail = Object.fromEntries(rows.map((r) => [r.email, r.name]));
+			expect(byEmail['admin@harborlane.example']).toBe('Maren Tolliver (demo)');
+			expect(byEmail['learner@harborlane.example']).toBe('Chosen by the learner');
+		} finally {
+			await db.execute(sql`update users set name = 'Robin Okafor (demo)' where email = 'learner@harborlane.example'`);
+		}
+	});
+
 	test('a lesson edited in the browser is not overwritten by the seed', async () => {
 		await seedDemo(db);
 		await db.execute(sql`update lessons set source = 'db', title = 'Edited in the browser' where slug = 'what-a-stop-is'`);

@@ -12,7 +12,7 @@ describe('checkChosenFile', () => {
 	it('says what to do with a wrong type, HEIC, RAW, an empty or an oversized file', () => {
 		expect(checkChosenFile({ name: 'notes.pdf', type: 'application/pdf', size: MB }, 40 * MB)).toMatch(/not a photo we can read/);
 		expect(checkChosenFile({ name: 'IMG_1.HEIC', type: 'image/heic', size: MB }, 40 * MB)).toMatch(/HEIC/);
-		expect(checkChosenFile({ name: 'run.NEF', type: '', size: MB }, 40 * MB)).toMatch(/RAW/);
+		expect(checkChosenFile({ name: 'run.NEF', type: '', size: MB }, 40 * MB)).toMatch(/Raw files/);
 		expect(checkChosenFile({ name: 'a.jpg', type: 'image/jpeg', size: 0 }, 40 * MB)).toMatch(/empty/);
 		expect(checkChosenFile({ name: 'a.jpg', type: 'image/jpeg', size: 41 * MB }, 40 * MB)).toBe(
 			'This file is 41 MB; the limit is 40 MB. Export a JPEG at full size and normal quality, which stays well under it.'

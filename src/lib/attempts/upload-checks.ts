@@ -25,9 +25,9 @@ export function formatMegabytes(bytes: number): string {
 export function checkChosenFile(file: ChosenFile, maxBytes: number): string | null {
 	if (file.size === 0) return 'This file is empty. Please choose the photo again.';
 	if (HEIC.test(file.name) || /heic|heif/i.test(file.type)) {
-		return 'HEIC photos cannot be measured or shown here. Set your phone to share “Most compatible” (JPEG), or export a JPEG.';
+		return 'HEIC photos cannot be measured or shown here. Set your phone to save JPEG, or export a JPEG.';
 	}
-	if (RAW.test(file.name)) return 'Camera RAW files cannot be measured or shown here. Upload a JPEG export of the same frame.';
+	if (RAW.test(file.name)) return 'Raw files cannot be measured or shown here. Upload a JPEG export of the same frame.';
 	if (!MEASURABLE_TYPES.has(file.type) && !MEASURABLE.test(file.name)) {
 		return 'This is not a photo we can read. Upload a JPEG (or PNG, WebP, TIFF, AVIF) straight from the camera or your editor.';
 	}

@@ -1,4 +1,4 @@
-// Who may open a lesson without signing in: free previews (and unknown slugs, so they get an honest 404).
+// Who may open a lesson without signing in: open lessons (and unknown slugs, so they get an honest 404).
 import { and, eq } from 'drizzle-orm';
 import { db } from './db';
 import { courses, lessons, modules } from './db/schema';

@@ -110,7 +110,7 @@ export function refundLetter(to: string, name: string, r: Omit<ReceiptFacts, 'pa
 		[
 			`Hello ${name},`,
 			`We refunded ${r.amount} for "${r.course}" (reference ${r.reference}). It usually reaches your card within a few working days.`,
-			'The members-only lessons of this course are closed to your account now; the free previews stay open.'
+			'The members-only lessons of this course are closed to your account now; the open lessons stay open to everyone.'
 		],
 		{ href: r.href, label: 'See your billing page' }
 	);

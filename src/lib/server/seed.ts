@@ -80,7 +80,13 @@ export async function seedDemo(db: Db, root = process.cwd()): Promise<void> {
 		const demo: DemoAccount[] = JSON.parse(await readFile(join(root, 'scripts', 'demo-accounts.json'), 'utf8'));
 		for (const person of demo) {
 			const existing = await tx.query.users.findFirst({ where: eq(users.email, person.email) });
-			if (existing) continue;
+			if (existing) {
+				// a renamed demo person (names are invented and may change) is renamed in kept databases too
+				if (existing.name !== person.name && existing.name.endsWith('(demo)')) {
+					await tx.update(users).set({ name: person.name }).where(eq(users.id, existing.id));
+				}
+				continue;
+			}
 			await tx.insert(users).values({
 				id: randomBytes(15).toString('base64url'),
 				email: person.email,

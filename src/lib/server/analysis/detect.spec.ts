@@ -21,10 +21,10 @@ describe('detectFileType', () => {
 		expect(detectFileType(await base.clone().gif().toBuffer()).kind).toBe('gif');
 	});
 
-	it('marks HEIC and camera RAW containers as not decodable here', () => {
+	it('marks HEIC and raw containers as not decodable here', () => {
 		expect(detectFileType(ftyp('heic', 'mif1', 'heic'))).toMatchObject({ kind: 'heic', decodable: false });
 		expect(detectFileType(ftyp('crx ', 'crx '))).toMatchObject({ kind: 'raw', decodable: false });
-		expect(detectFileType(bytes('II*', [0], [8, 0, 0, 0], 'CR', [2, 0]))).toMatchObject({ kind: 'raw', label: 'camera RAW (CR2)' });
+		expect(detectFileType(bytes('II*', [0], [8, 0, 0, 0], 'CR', [2, 0]))).toMatchObject({ kind: 'raw', label: 'raw (CR2)' });
 		expect(detectFileType(bytes('IIRO', [8, 0, 0, 0, 0, 0]))).toMatchObject({ kind: 'raw' });
 		expect(detectFileType(bytes('FUJIFILMCCD-RAW 0201'))).toMatchObject({ kind: 'raw' });
 	});

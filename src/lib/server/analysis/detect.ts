@@ -4,7 +4,7 @@ export type FileKind = 'jpeg' | 'png' | 'webp' | 'tiff' | 'avif' | 'heic' | 'raw
 
 export interface FileType {
 	kind: FileKind;
-	/** Name for people, e.g. 'JPEG', 'HEIC', 'camera RAW (CR3)'. */
+	/** Name for people, e.g. 'JPEG', 'HEIC', 'raw (CR3)'. */
 	label: string;
 	/** Whether sharp can decode the pixels here (the bundled libvips has no HEVC or RAW decoder). */
 	decodable: boolean;
@@ -25,7 +25,7 @@ function detectIsoBmff(bytes: Uint8Array): FileType | null {
 	);
 	const brands = [ascii(bytes, 8, 4)];
 	for (let offset = 16; offset + 4 <= boxSize; offset += 4) brands.push(ascii(bytes, offset, 4));
-	if (brands[0] === 'crx ') return { kind: 'raw', label: 'camera RAW (CR3)', decodable: false };
+	if (brands[0] === 'crx ') return { kind: 'raw', label: 'raw (CR3)', decodable: false };
 	if (brands.includes('avif') || brands.includes('avis')) return { kind: 'avif', label: 'AVIF', decodable: true };
 	if (brands.some((b) => HEIC_BRANDS.has(b)) || brands.includes('mif1') || brands.includes('msf1')) {
 		return { kind: 'heic', label: 'HEIC', decodable: false };
@@ -36,10 +36,10 @@ function detectIsoBmff(bytes: Uint8Array): FileType | null {
 function detectTiffFamily(bytes: Uint8Array): FileType | null {
 	const head = ascii(bytes, 0, 4);
 	// Olympus ORF and Panasonic RW2 alter the TIFF magic number
-	if (head === 'IIRO' || head === 'IIRS' || head === 'MMOR') return { kind: 'raw', label: 'camera RAW (ORF)', decodable: false };
-	if (head === 'IIU\0') return { kind: 'raw', label: 'camera RAW (RW2)', decodable: false };
+	if (head === 'IIRO' || head === 'IIRS' || head === 'MMOR') return { kind: 'raw', label: 'raw (ORF)', decodable: false };
+	if (head === 'IIU\0') return { kind: 'raw', label: 'raw (RW2)', decodable: false };
 	if (head !== 'II*\0' && head !== 'MM\0*') return null;
-	if (ascii(bytes, 8, 2) === 'CR') return { kind: 'raw', label: 'camera RAW (CR2)', decodable: false };
+	if (ascii(bytes, 8, 2) === 'CR') return { kind: 'raw', label: 'raw (CR2)', decodable: false };
 	// NEF, ARW, DNG, PEF… are plain TIFF containers: read-frame tells them apart by their tags
 	return { kind: 'tiff', label: 'TIFF', decodable: true };
 }
@@ -56,7 +56,7 @@ export function detectFileType(bytes: Uint8Array): FileType {
 		return { kind: 'gif', label: 'GIF', decodable: false };
 	}
 	if (bytes.length >= 15 && ascii(bytes, 0, 15) === 'FUJIFILMCCD-RAW') {
-		return { kind: 'raw', label: 'camera RAW (RAF)', decodable: false };
+		return { kind: 'raw', label: 'raw (RAF)', decodable: false };
 	}
 	return detectIsoBmff(bytes) ?? (bytes.length >= 10 ? detectTiffFamily(bytes) : null) ?? {
 		kind: 'unknown',

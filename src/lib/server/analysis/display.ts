@@ -26,12 +26,12 @@ async function encodeWebp(pipeline: Sharp, quality: number): Promise<DisplayCopy
 	return { data, width: info.width, height: info.height, format: 'webp' };
 }
 
-/** Rejects only with FrameReadError (HEIC and camera RAW cannot be shown). */
+/** Rejects only with FrameReadError (HEIC and raw cannot be shown). */
 export async function displayCopies(bytes: Uint8Array, options: { limits?: Partial<InputLimits> } = {}): Promise<DisplayCopies> {
 	const limits = resolveLimits(options.limits);
 	const type = checkInput(bytes, limits);
 	if (!type.decodable) {
-		throw new FrameReadError('not-decodable', `${type.label} files cannot be shown in the browser here. Upload a JPEG export as well.`);
+		throw new FrameReadError('not-decodable', `${type.label.charAt(0).toUpperCase()}${type.label.slice(1)} files cannot be shown in the browser here. Upload a JPEG export as well.`);
 	}
 	try {
 		// one decode: orientation applied, sRGB, at display size; both copies come from these pixels

@@ -101,7 +101,7 @@ describe('readExifTags', () => {
 		expect(await readExifTags(jpeg)).toBeNull();
 	});
 
-	it('tells camera RAW TIFF containers from ordinary TIFF by their first directory', () => {
+	it('tells raw TIFF containers from ordinary TIFF by their first directory', () => {
 		expect(looksLikeCameraRaw({ PhotometricInterpretation: 32803 })).toBe(true); // CFA, TIFF/EP and DNG
 		expect(looksLikeCameraRaw({ DNGVersion: [1, 4, 0, 0] })).toBe(true);
 		expect(looksLikeCameraRaw({ SubfileType: 1 })).toBe(true);

@@ -55,7 +55,7 @@ export const EXIF_TAG_NAMES: Record<ExifField, string> = {
 	model: 'Model'
 };
 
-// SubfileType (NewSubfileType, 0x00FE), DNGVersion, SubIFD and PhotometricInterpretation tell camera RAW from a TIFF
+// SubfileType (NewSubfileType, 0x00FE), DNGVersion, SubIFD and PhotometricInterpretation tell raw from a TIFF
 const IFD0_TAGS = ['Make', 'Model', 'Orientation', 'SubIFD', 'SubfileType', 'DNGVersion', 'PhotometricInterpretation'];
 const EXIF_TAGS = [
 	'ExposureTime',

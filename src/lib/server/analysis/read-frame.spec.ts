@@ -152,7 +152,7 @@ describe('readFrame', () => {
 		expect(error.code).toBe('invalid-region');
 	});
 
-	it('reads only the settings of a camera RAW file, with a note that pixels were not measured', async () => {
+	it('reads only the settings of a raw file, with a note that pixels were not measured', async () => {
 		// A TIFF whose first directory says CFA (PhotometricInterpretation 32803, TIFF/EP and DNG): how RAW files look
 		const carrier = await sharp({ create: { width: 16, height: 16, channels: 3, background: '#777' } })
 			.jpeg()

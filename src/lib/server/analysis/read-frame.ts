@@ -19,7 +19,7 @@ export interface PixelReport extends PixelMeasures {
 export interface Frame {
 	file: { kind: FileKind; label: string; bytes: number };
 	exif: ExifReport;
-	/** null when the pixels could not be measured (HEIC, camera RAW); `notes` says why. */
+	/** null when the pixels could not be measured (HEIC, raw); `notes` says why. */
 	pixels: PixelReport | null;
 	/** Things a learner or mentor should know about how this frame was read. */
 	notes: string[];
@@ -46,6 +46,11 @@ function exifSource(kind: FileKind, bytes: Uint8Array, header: ImageHeader): Uin
 	return header.exif ?? (kind === 'jpeg' || kind === 'png' ? bytes : null);
 }
 
+// Labels such as "raw (CR3)" are written mid-sentence; a message that opens with one needs a capital.
+function sentenceStart(label: string): string {
+	return label.charAt(0).toUpperCase() + label.slice(1);
+}
+
 function exifOnlyNote(label: string): string {
 	return `Pixels were not measured: ${label} files cannot be decoded here, so only the camera settings were read. Upload a JPEG export for a full check.`;
 }
@@ -69,7 +74,7 @@ async function readUndecodable(bytes: Uint8Array, file: Frame['file'], limits: I
 	if (!tags) {
 		throw new FrameReadError(
 			'not-decodable',
-			`${file.label} files cannot be measured here and this one carries no readable camera settings. Upload a JPEG export instead.`
+			`${sentenceStart(file.label)} files cannot be measured here and this one carries no readable camera settings. Upload a JPEG export instead.`
 		);
 	}
 	return { file, exif: normaliseExif(tags), pixels: null, notes: [exifOnlyNote(file.label)] };
@@ -103,7 +108,7 @@ async function readChecked(bytes: Uint8Array, options: ReadFrameOptions): Promis
 		// NEF, ARW, DNG… are TIFF containers: their first directory says so before any decoding
 		tags = await parseExif(bytes, notes);
 		if (looksLikeCameraRaw(tags)) {
-			return { file: { ...file, kind: 'raw', label: 'camera RAW' }, exif: normaliseExif(tags), pixels: null, notes: [exifOnlyNote('camera RAW'), ...notes] };
+			return { file: { ...file, kind: 'raw', label: 'raw' }, exif: normaliseExif(tags), pixels: null, notes: [exifOnlyNote('raw'), ...notes] };
 		}
 	}
 

@@ -58,7 +58,7 @@ export async function createLesson(input: NewLessonInput, authorId: string): Pro
 	});
 }
 
-/** Reading time and free preview apply at once (they are not part of the versioned text). */
+/** Reading time and the open-lesson setting apply at once (they are not part of the versioned text). */
 export async function saveLessonSettings(lessonId: number, authorId: string, input: SettingsInput): Promise<AuthoringResult> {
 	return db.transaction(async (tx) => {
 		const [lesson] = await tx.select().from(lessons).where(eq(lessons.id, lessonId)).for('update');
@@ -67,7 +67,7 @@ export async function saveLessonSettings(lessonId: number, authorId: string, inp
 		const moved = await ensureDbLesson(tx, lesson, authorId);
 		if (!moved.ok) return moved;
 		await tx.update(lessons).set({ minutes: input.minutes, freePreview: input.freePreview }).where(eq(lessons.id, lessonId));
-		return { ok: true, message: input.freePreview ? 'Settings saved: the lesson is a free preview.' : 'Settings saved.' };
+		return { ok: true, message: input.freePreview ? 'Settings saved: anyone may read this lesson.' : 'Settings saved.' };
 	});
 }
 

@@ -40,7 +40,7 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 };
 
 export const actions = {
-	/** "Mark complete" (done=yes) and its undo (done=no). */
+	/** "I've finished this lesson" (done=yes) and its undo (done=no). */
 	complete: async (event) => {
 		const user = requireUser(event);
 		const found = await getLesson(event.params.course, event.params.lesson);
