@@ -31,6 +31,20 @@ describe('Safety note', () => {
 		expect(textOf(show('eyes'), 'safety-cautions')).toMatch(/Never fire a flash into a rider's, climber's or runner's eyes/);
 	});
 
+	it('cautions about flashing-light sensitivity, heat from bursts, thunder, tall stands and water', () => {
+		expect(textOf(show('flashing'), 'safety-cautions')).toMatch(/sensitive to flashing light/);
+		expect(textOf(show('flashing'), 'safety-cautions')).toMatch(/seizures/);
+		const heat = textOf(show('heat'), 'safety-cautions');
+		for (const word of [/cut out/, /burn/, /scorch/, /high-speed sync/]) expect(heat).toMatch(word);
+		const thunder = textOf(show('thunder'), 'safety-cautions');
+		expect(thunder).toMatch(/tall metal stands/);
+		expect(thunder).toMatch(/open fields/);
+		const tall = textOf(show('tall-stands'), 'safety-cautions');
+		for (const word of [/Sandbag/, /guy/, /crash mats/, /helper/]) expect(tall).toMatch(word);
+		// a buoyancy aid always, not only when someone asks
+		expect(textOf(show('water'), 'safety-cautions')).toMatch(/buoyancy aid on docks, pontoons and boats at all times/);
+	});
+
 	it('defaults to the general caution', () => {
 		expect(shownTopics(show())).toEqual(['general']);
 		expect(elementsByTestId(show(), 'widget-notice')).toHaveLength(0);

@@ -3,7 +3,9 @@ import { readFile, readdir } from 'node:fs/promises';
 import { join, relative } from 'node:path';
 import { compile } from 'mdsvex';
 import { z } from 'zod';
+import { SAFETY_TOPICS } from '../../safety-topics';
 import { assignmentSpecSchema } from '../grading/index';
+import { assertSafetyTopics } from './safety-check';
 
 const moduleSchema = z.object({
 	slug: z.string().regex(/^[a-z0-9-]+$/),
@@ -35,7 +37,9 @@ export const lessonFrontmatterSchema = z.object({
 	summary: z.string().min(1),
 	preview: z.boolean().default(false),
 	minutes: z.number().int().positive(),
-	assignments: z.array(assignmentSchema).default([])
+	assignments: z.array(assignmentSchema).default([]),
+	/** Cautions the lesson must carry in a Safety note, because it sends people near athletes, water, heights or weather. */
+	safety: z.array(z.enum(SAFETY_TOPICS)).default([])
 });
 
 export type CourseFile = z.infer<typeof courseSchema>;
@@ -62,9 +66,11 @@ export async function readCatalogue(root = process.cwd()): Promise<CatalogueCour
 		const lessonDir = join(courseDir, 'lessons');
 		for (const file of (await readdir(lessonDir)).filter((f) => f.endsWith('.svx')).sort()) {
 			const path = join(lessonDir, file);
-			const compiled = await compile(await readFile(path, 'utf8'), { smartypants: false });
+			const source = await readFile(path, 'utf8');
+			const compiled = await compile(source, { smartypants: false });
 			const fm = (compiled?.data as { fm?: unknown } | undefined)?.fm ?? {};
 			const meta = parseOrThrow(lessonFrontmatterSchema, fm, path);
+			assertSafetyTopics(path, meta.safety, source);
 			if (!course.modules.some((m) => m.slug === meta.module)) {
 				throw new Error(`${path}: module "${meta.module}" is not listed in ${coursePath}`);
 			}

@@ -1,7 +1,7 @@
 // Stopwise's own plain safety cautions for lighting people outdoors, one per topic a lesson can ask for.
+import { SAFETY_TOPICS, type SafetyTopic } from '$lib/safety-topics';
 
-export const SAFETY_TOPICS = ['general', 'stands', 'wind', 'rain', 'eyes', 'batteries', 'heights', 'water'] as const;
-export type SafetyTopic = (typeof SAFETY_TOPICS)[number];
+export { SAFETY_TOPICS, type SafetyTopic };
 
 export const SAFETY_CAUTIONS: Readonly<Record<SafetyTopic, { title: string; text: string }>> = {
 	general: {
@@ -12,6 +12,10 @@ export const SAFETY_CAUTIONS: Readonly<Record<SafetyTopic, { title: string; text
 		title: 'Stands near the action',
 		text: 'Keep stands, booms and cases out of the line of travel and well clear of run-outs, landing zones and the places a ball, board or bike goes when a move goes wrong. Ask the athlete where they will end up if they miss, leave that clear, and have a helper watch any stand near people.'
 	},
+	'tall-stands': {
+		title: 'Tall stands',
+		text: 'A light raised high is top-heavy and catches every gust. Sandbag each leg, guy the stand with lines to fixed points, keep the ground it could fall onto clear of people, crash mats and the climbing or playing area, and keep a helper beside it the whole time it is up.'
+	},
 	wind: {
 		title: 'Wind',
 		text: 'Weigh every stand down with sandbags before you raise the light; a softbox or umbrella is a sail. In gusts, lower the light, close the modifier or have someone hold the stand, and never leave a raised light alone.'
@@ -20,9 +24,21 @@ export const SAFETY_CAUTIONS: Readonly<Record<SafetyTopic, { title: string; text
 		title: 'Rain and mains power',
 		text: 'Mains-powered strobes, extension leads and power packs do not belong in rain or on wet ground. Use battery units, protect them from water, and stop shooting if water reaches any electrical part.'
 	},
+	thunder: {
+		title: 'Thunder and lightning',
+		text: 'If you can hear thunder, lightning can reach you. Lower and pack away tall metal stands and booms at once, above all on open fields, hills and by water, and leave exposed ground. Set up again only when the storm has clearly passed and the organiser says so; weather services commonly advise waiting at least 30 minutes after the last thunder.'
+	},
 	eyes: {
 		title: "Flash and the athlete's eyes",
 		text: "Never fire a flash into a rider's, climber's or runner's eyes while they are in the middle of a move: a burst at the wrong moment can dazzle them when they need their sight most. Agree with them when and from where you will fire, light from the side or behind, and do a test flash before they start."
+	},
+	flashing: {
+		title: 'People sensitive to flashing light',
+		text: 'Repeated flashes and bursts can trigger seizures or migraines in people with photosensitive epilepsy and similar conditions, athletes and onlookers alike. Ask before you start, say when a burst is coming, keep bursts short with pauses between them, and stop at once if anyone says the light bothers them.'
+	},
+	heat: {
+		title: 'Heat from bursts and high-speed sync',
+		text: 'Long bursts, full power and high-speed sync heat a flash head fast. Many heads cut out to protect themselves: let them cool rather than forcing them on. The front of a hot head can burn skin and scorch or melt a gel or diffuser laid on it, so use a holder that keeps the gel off the tube, handle the head by its body, and keep to the maker\'s limit on flashes in a row.'
 	},
 	batteries: {
 		title: 'Batteries',
@@ -34,7 +50,7 @@ export const SAFETY_CAUTIONS: Readonly<Record<SafetyTopic, { title: string; text
 	},
 	water: {
 		title: 'Near water',
-		text: 'Keep mains power away from water entirely, stay back from edges and banks, and put a strap on every camera and light. On or beside boats, follow the crew\'s and the club\'s safety briefing and wear a buoyancy aid when they ask.'
+		text: 'Keep mains power away from water entirely, stay back from edges and banks, and put a strap on every camera and light. Wear a buoyancy aid on docks, pontoons and boats at all times, not only when asked, and follow the crew\'s and the club\'s safety briefing.'
 	}
 };
 
