@@ -64,6 +64,26 @@ describe('Sync Gate', () => {
 		expect(Number(attrOf(body, 'sync-chart-marker', 'cx'))).toBeCloseTo(207.25, 2);
 	});
 
+	it("takes the learner's own entry cost for their flash", () => {
+		const body = show({ shutter: '1/1000', sync: '1/250', entry: '1.7' });
+		const cost = hssCost({ shutter: nearestMarked(1 / 1000, 'shutter').value, syncSpeed: nearestMarked(1 / 250, 'shutter').value, entryLoss: 1.7 });
+		expect(textOf(body, 'sync-cost')).toBe(showNumber(cost, 1));
+		// 1.7 stops to enter plus APEX Tv 10 − Tv 8 = 2 stops above sync: 3.7 (the per-stop part is common practice, no published source)
+		expect(textOf(body, 'sync-cost')).toBe('3.7');
+		expect(textOf(body, 'sync-reach')).toBe(`×${showNumber(2 ** (-3.7 / 2), 2)}`);
+		expect(attrOf(body, 'sync-entry', 'value')).toBe('1.7');
+		// an entry cost of zero (a flash that loses nothing to switch) leaves only the per-stop cost
+		expect(textOf(show({ shutter: '1/1000', sync: '1/250', entry: '0' }), 'sync-cost')).toBe('2.0');
+		// at or below sync there is no cost, whatever the entry cost
+		expect(textOf(show({ shutter: '1/250', sync: '1/250', entry: '2' }), 'sync-cost')).toBe('0.0');
+	});
+
+	it('refuses an entry cost outside 0 to 3 stops with a notice, and uses one stop', () => {
+		const body = show({ shutter: '1/1000', sync: '1/250', entry: '9' });
+		expect(textOf(body, 'widget-notice')).toContain('entry="9"');
+		expect(textOf(body, 'sync-cost')).toBe('3.0');
+	});
+
 	it('shows a notice and falls back instead of throwing on bad attributes', () => {
 		const body = show({ shutter: 'quick', sync: '1/0' });
 		const notice = textOf(body, 'widget-notice');
