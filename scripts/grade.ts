@@ -2,7 +2,7 @@
 import { readFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import { checkBox, describeFlash, parseBox, tryReadFrame, type Box, type Frame } from '../src/lib/server/analysis/index';
-import { describeCriterion, formatSpecErrors, grade, parseSpecText, type AssignmentSpec, type GradeResult } from '../src/lib/server/grading/index';
+import { describeCriterion, formatSpecErrors, grade, parseSpecText, type AssignmentSpec, type FlashUsed, type GradeResult } from '../src/lib/server/grading/index';
 import { formatAperture, formatShutter } from '../src/lib/exposure/index';
 
 const USAGE = `Usage: npm run grade -- --spec spec.json --frame reference=ref.jpg --frame lit=lit.jpg [--subject x,y,w,h] [--json]
@@ -10,6 +10,9 @@ const USAGE = `Usage: npm run grade -- --spec spec.json --frame reference=ref.jp
   --spec FILE          Assignment spec (JSON)
   --frame NAME=FILE    a frame named as in the spec's "frames" (repeat for each)
   --subject x,y,w,h    subject box in fractions of the frame (default: a centred box)
+  --used gn,power,distance
+                       what you used: guide number (m, ISO 100), power (1/4 or 0.25), distance (m);
+                       the verdict then shows the predicted subject lift beside the measured one
   --json               print the full result as JSON
 Exit codes: 0 graded (any verdict), 1 bad input.`;
 
@@ -20,7 +23,23 @@ interface Options {
 	specPath: string;
 	frames: Map<string, string>;
 	subject: Box | undefined;
+	used: FlashUsed | undefined;
 	json: boolean;
+}
+
+function parseUsed(text: string): FlashUsed {
+	const parts = text.split(',').map((p) => p.trim());
+	const num = (p: string | undefined) => {
+		if (p === undefined || p === '') return undefined;
+		const fraction = /^(\d+(?:\.\d+)?)\/(\d+(?:\.\d+)?)$/.exec(p);
+		const n = fraction ? Number(fraction[1]) / Number(fraction[2]) : Number(p);
+		if (!Number.isFinite(n) || n <= 0) throw new InputProblem(`--used needs positive numbers gn,power,distance, got "${text}".`);
+		return n;
+	};
+	const [gn, power, distance] = [num(parts[0]), num(parts[1]), num(parts[2])];
+	if (parts.length !== 3 || gn === undefined || distance === undefined) throw new InputProblem(`--used needs gn,power,distance (power may be empty for full), got "${text}".`);
+	if (power !== undefined && power > 1) throw new InputProblem('--used: power is a fraction of full power, at most 1 (1/4 or 0.25).');
+	return { gn, power, distance };
 }
 
 function readOptions(argv: string[]): Options | 'help' {
@@ -32,6 +51,7 @@ function readOptions(argv: string[]): Options | 'help' {
 				spec: { type: 'string' },
 				frame: { type: 'string', multiple: true },
 				subject: { type: 'string' },
+				used: { type: 'string' },
 				json: { type: 'boolean', default: false },
 				help: { type: 'boolean', short: 'h', default: false }
 			},
@@ -59,7 +79,7 @@ function readOptions(argv: string[]): Options | 'help' {
 		if (problem) throw new InputProblem(`--subject: ${problem}`);
 		subject = box;
 	}
-	return { specPath: values.spec, frames, subject, json: values.json ?? false };
+	return { specPath: values.spec, frames, subject, used: values.used !== undefined ? parseUsed(values.used) : undefined, json: values.json ?? false };
 }
 
 async function readFileFor(what: string, path: string): Promise<Buffer> {
@@ -120,7 +140,7 @@ function showFrame(name: string, frame: Frame): string[] {
 	if (p) {
 		const k = (v: number | null) => (v === null ? '—' : `${Math.round(v)} K`);
 		lines.push(
-			`    ${p.width}×${p.height}; subject ${n(p.subject.stops, 2)} stops (${k(p.subject.cct)}), background ${n(p.background.stops, 2)} stops (${k(p.background.cct)}); clipped ${n(p.clippedHighlights, 1)} % highlights, ${n(p.clippedShadows, 1)} % shadows`
+			`    ${p.width}×${p.height}; subject ${n(p.subject.stops, 2)} stops (${k(p.subject.cct)}, ${n(100 * p.subject.clippedShare, 1)} % clipped), background ${n(p.background.stops, 2)} stops (${k(p.background.cct)}, ${n(100 * p.background.clippedShare, 1)} % clipped); clipped ${n(p.clippedHighlights, 1)} % highlights, ${n(p.clippedShadows, 1)} % shadows`
 		);
 	}
 	for (const note of frame.notes) lines.push(`    note: ${note}`);
@@ -140,7 +160,13 @@ function printTable(spec: AssignmentSpec, result: GradeResult): void {
 	for (const row of rows) {
 		const c = result.criteria[row[5]];
 		out.push(`  ${line(row)}`, `      ${describeCriterion(spec.criteria[row[5]])}`, `      → ${c.message}`);
+		const e = c.evidence;
+		if (e?.lift !== undefined) {
+			const predicted = e.predictedLift !== undefined ? `; predicted from what you used ${n(e.predictedLift, 2)}` : '';
+			out.push(`      lift ${n(e.lift, 2)} ± ${n(e.uncertainty ?? 0, 2)} stops, flash ${Math.round(100 * (e.flashShare ?? 0))} % of the subject's light${predicted}`);
+		}
 	}
+	for (const note of result.notes) out.push('', `Note: ${note}`);
 	out.push('', `Verdict: ${result.verdict}`);
 	console.log(out.join('\n'));
 }
@@ -153,7 +179,7 @@ async function main(): Promise<number> {
 	}
 	const spec = await loadSpec(options.specPath);
 	const frames = await loadFrames(spec, options);
-	const result = grade(spec, frames);
+	const result = grade(spec, frames, { used: options.used });
 	if (options.json) console.log(JSON.stringify(result, null, 2));
 	else printTable(spec, result);
 	return 0;

@@ -9,6 +9,7 @@ export * from './flash';
 export * from './colour';
 export * from './srgb';
 export * from './chromaticity';
+export * from './planckian';
 export * from './swatch';
 export * from './motion';
 export * from './geometry';

@@ -34,10 +34,14 @@ describe('measureColour', () => {
 	});
 
 	it('refuses a temperature for colours far from any white light', () => {
+		// beyond the locus ends (1667–25 000 K) there is no temperature and no Duv at all
 		const saturatedBlue = measureColour([0.01, 0.02, 0.5], 0.05);
-		expect(saturatedBlue.cct).toBeNull();
-		expect(Math.abs(saturatedBlue.duv ?? 0)).toBeGreaterThan(0.05);
+		expect(saturatedBlue).toEqual({ cct: null, duv: null });
 		expect(measureColour([0.3, 0.02, 0.02], 0.08).cct).toBeNull();
+		// a green tint near 5000 K: inside the range, but more than 0.02 from the locus in uv
+		const green = measureColour([0.18, 0.3, 0.15], 0.25);
+		expect(green.cct).toBeNull();
+		expect(green.duv).toBeGreaterThan(0.02);
 	});
 
 	it('gives nothing for a region too dark to have a colour', () => {

@@ -15,8 +15,20 @@ export const DEFAULT_LIMITS: Readonly<InputLimits> = Object.freeze({
 	maxPixels: 150_000_000
 });
 
-/** Longest side of the image that is measured; JPEG shrink-on-load gets there without a full decode. */
+/**
+ * Least longest side of the image that is measured. The decode shrinks by a power of two only (JPEG
+ * shrink-on-load, 8×8 DCT scaling), so little is averaged in encoded values; the pixels are then
+ * linearised one by one before any further averaging (pixels.ts).
+ */
 export const ANALYSIS_SIZE = 1024;
+const SHRINK_FACTORS = [8, 4, 2] as const;
+
+/** The decode size: the frame shrunk by the largest power of two that keeps its longest side at least ANALYSIS_SIZE. */
+export function analysisSizeFor(width: number, height: number): { width: number; height: number; shrink: number } {
+	const long = Math.max(width, height);
+	const shrink = SHRINK_FACTORS.find((f) => long / f >= ANALYSIS_SIZE) ?? 1;
+	return { width: Math.ceil(width / shrink), height: Math.ceil(height / shrink), shrink };
+}
 // smaller than this and there is no subject and background to tell apart
 const MIN_SIDE = 16;
 
@@ -90,11 +102,14 @@ export interface DecodedImage {
 	channels: number;
 }
 
-/** Oriented 8-bit sRGB pixels, longest side at most ANALYSIS_SIZE. */
-export async function decodeForAnalysis(bytes: Uint8Array, limits: InputLimits): Promise<DecodedImage> {
+/** Oriented 8-bit sRGB pixels at analysisSizeFor(header size); `size` is the oriented full size from readHeader. */
+export async function decodeForAnalysis(bytes: Uint8Array, limits: InputLimits, size: { width: number; height: number }): Promise<DecodedImage> {
 	try {
-		const { data, info } = await sharpInput(bytes, limits)
-			.resize({ width: ANALYSIS_SIZE, height: ANALYSIS_SIZE, fit: 'inside', withoutEnlargement: true })
+		const target = analysisSizeFor(size.width, size.height);
+		let pipeline = sharpInput(bytes, limits);
+		// an exact power-of-two size lets libjpeg's scaled decode do all of the shrinking, with no resampling after it
+		if (target.shrink > 1) pipeline = pipeline.resize({ width: target.width, height: target.height, fit: 'fill' });
+		const { data, info } = await pipeline
 			.toColourspace('srgb')
 			.removeAlpha()
 			.raw({ depth: 'uchar' })

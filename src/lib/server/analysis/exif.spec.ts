@@ -42,6 +42,28 @@ describe('normaliseExif', () => {
 		expect(normaliseExif({ ISO: 0 }).iso).toBeNull();
 	});
 
+	it('reads the ISO tag SensitivityType names first, and never reports 65535 as an ISO', () => {
+		// CIPA DC-008-2019 4.6.5 tag 0x8830: 1 = SOS, 3 = ISO speed, 6 = REI and ISO speed (ISO 12232:2019 quantities)
+		const sos = normaliseExif({ ISO: 400, SensitivityType: 1, StandardOutputSensitivity: 400, RecommendedExposureIndex: 500 });
+		expect(sos).toMatchObject({ iso: 400, sources: { iso: 'StandardOutputSensitivity' } });
+		const speed = normaliseExif({ ISO: 65535, SensitivityType: 3, ISOSpeed: 80000, RecommendedExposureIndex: 64000 });
+		expect(speed).toMatchObject({ iso: 80000, sources: { iso: 'ISOSpeed' } });
+		const both = normaliseExif({ ISO: 65535, SensitivityType: 6, ISOSpeed: 70000 });
+		expect(both).toMatchObject({ iso: 70000, sources: { iso: 'ISOSpeed' } });
+		// saturated everywhere: no ISO at all, so criteria needing it say which tag is missing
+		expect(normaliseExif({ ISO: 65535 }).iso).toBeNull();
+		expect(normaliseExif({ ISO: 65535, SensitivityType: 2, RecommendedExposureIndex: 65535 }).iso).toBeNull();
+	});
+
+	it('reads a Flash tag of [0] as "did not fire", not as missing', () => {
+		// CIPA DC-008-2019 4.6.5 tag 0x9209: value 0 = flash did not fire
+		const flash = normaliseExif({ Flash: [0] }).flash;
+		expect(flash).not.toBeNull();
+		expect(flash?.fired).toBe(false);
+		expect(normaliseExif({ Flash: 0 }).flash?.fired).toBe(false);
+		expect(normaliseExif({ Flash: [0x19] }).flash?.fired).toBe(true);
+	});
+
 	it('falls back to the APEX tags when ExposureTime or FNumber is missing', () => {
 		// APEX (CIPA DC-008-2019 Annex C): Tv = −log2 t, so Tv 9 is 1/512 s; Av = 2·log2 N, so Av 6 is f/8
 		const r = normaliseExif({ ShutterSpeedValue: 9, ApertureValue: 6 });

@@ -156,22 +156,61 @@ function text(value: unknown): string | null {
 	return cleaned === '' ? null : cleaned;
 }
 
-// PhotographicSensitivity saturates at 65535; the real value then sits in the tag that
-// SensitivityType names (CIPA DC-008, 4.6.5, tags 0x8830–0x8833).
-const ISO_FALLBACKS = ['RecommendedExposureIndex', 'StandardOutputSensitivity', 'ISOSpeed', 'ExposureIndex'] as const;
+// PhotographicSensitivity (the ISO tag) is a SHORT and saturates at 65535, which is then no ISO at all. SensitivityType
+// (0x8830) says which ISO 12232 quantity the camera recorded: 1 SOS, 2 REI, 3 ISO speed, 4 SOS+REI, 5 SOS+ISO speed,
+// 6 REI+ISO speed, 7 all three (CIPA DC-008, 4.6.5); the tag it names is read first, being a LONG that does not saturate.
 const ISO_SATURATED = 65535;
+const SOS = 'StandardOutputSensitivity';
+const REI = 'RecommendedExposureIndex';
+const ISO_SPEED = 'ISOSpeed';
+const NAMED_BY_TYPE: Record<number, readonly string[]> = {
+	1: [SOS],
+	2: [REI],
+	3: [ISO_SPEED],
+	4: [SOS, REI],
+	5: [SOS, ISO_SPEED],
+	6: [REI, ISO_SPEED],
+	7: [SOS, REI, ISO_SPEED]
+};
+// with no SensitivityType: REI and SOS before ISO speed and the exposure index, as cameras most often fill them
+const FALLBACKS = [REI, SOS, ISO_SPEED, 'ExposureIndex'] as const;
+
+// 65535 is the saturated SHORT; the LONG tags may hold more, but never that exact value as a real speed
+function isoValue(value: unknown, short = false): number | null {
+	const n = positive(value);
+	if (n === null || n === ISO_SATURATED || (short && n > ISO_SATURATED)) return null;
+	return n;
+}
 
 function readIso(tags: ExifTags, sources: ExifReport['sources']): number | null {
-	const primary = positive(tags.ISO);
-	if (primary !== null && primary < ISO_SATURATED) return primary;
-	for (const tag of ISO_FALLBACKS) {
-		const value = positive(tags[tag]);
+	const type = firstNumber(tags.SensitivityType);
+	const named = type !== null ? (NAMED_BY_TYPE[type] ?? []) : [];
+	for (const tag of named) {
+		const value = isoValue(tags[tag]);
 		if (value !== null) {
 			sources.iso = tag;
 			return value;
 		}
 	}
-	return primary;
+	const primary = isoValue(tags.ISO, true);
+	if (primary !== null) return primary;
+	for (const tag of FALLBACKS) {
+		const value = isoValue(tags[tag]);
+		if (value !== null) {
+			sources.iso = tag;
+			return value;
+		}
+	}
+	return null;
+}
+
+/** The Flash tag's value: an array's first element counts even when it is 0 ("did not fire"). */
+function flashValue(value: unknown): number | null {
+	if (Array.isArray(value) || ArrayBuffer.isView(value)) {
+		const first = Array.from(value as ArrayLike<unknown>)[0];
+		return typeof first === 'number' && Number.isFinite(first) ? first : null;
+	}
+	return firstNumber(value);
 }
 
 // APEX values (CIPA DC-008 Annex C): Tv = −log2(t), Av = 2·log2(N); used only when the direct tag is absent
@@ -242,7 +281,7 @@ export function normaliseExif(tags: ExifTags | null): ExifReport {
 		fNumber: readFNumber(tags, sources),
 		iso: readIso(tags, sources),
 		exposureBias: readBias(tags),
-		flash: decodeFlash(firstNumber(tags.Flash)),
+		flash: decodeFlash(flashValue(tags.Flash)),
 		focalLength: positive(tags.FocalLength),
 		focal35: positive(tags.FocalLengthIn35mmFormat),
 		whiteBalance: readWhiteBalance(tags),

@@ -22,16 +22,17 @@ describe('measurePixels', () => {
 	it('measures linear-light luminance as the culori reference does', () => {
 		for (const c of [[118, 118, 118], [200, 120, 40], [10, 60, 230], [3, 3, 3]] as Rgb8[]) {
 			const m = measurePixels(uniform(c), BOX);
-			expect(m.subject.luminance, c.join()).toBeCloseTo(culoriY(c), 10);
-			expect(m.background.luminance, c.join()).toBeCloseTo(culoriY(c), 10);
+			expect(m.subject.luminance, c.join()).toBeCloseTo(culoriY(c), 7);
+			expect(m.background.luminance, c.join()).toBeCloseTo(culoriY(c), 7);
 		}
 	});
 
 	it('weights the channels per ITU-R BT.709-6 (0.2126, 0.7152, 0.0722)', () => {
-		// ITU-R BT.709-6 item 3.2 luminance equation
-		expect(measurePixels(uniform([255, 0, 0]), BOX).subject.luminance).toBeCloseTo(0.2126, 10);
-		expect(measurePixels(uniform([0, 255, 0]), BOX).subject.luminance).toBeCloseTo(0.7152, 10);
-		expect(measurePixels(uniform([0, 0, 255]), BOX).subject.luminance).toBeCloseTo(0.0722, 10);
+		// ITU-R BT.709-6 item 3.2 luminance equation; code 240 decodes to 0.8714 (IEC 61966-2-1: ((240/255 + 0.055)/1.055)^2.4)
+		const full = 0.8714;
+		expect(measurePixels(uniform([240, 0, 0]), BOX).subject.luminance).toBeCloseTo(0.2126 * full, 4);
+		expect(measurePixels(uniform([0, 240, 0]), BOX).subject.luminance).toBeCloseTo(0.7152 * full, 4);
+		expect(measurePixels(uniform([0, 0, 240]), BOX).subject.luminance).toBeCloseTo(0.0722 * full, 4);
 	});
 
 	it('puts 8-bit code 118 at mid-grey, about 0 stops', () => {
@@ -41,10 +42,26 @@ describe('measurePixels', () => {
 		expect(Math.abs(m.subject.stops)).toBeLessThan(0.02);
 	});
 
-	it('averages light, not code values: half black and half white is 0.5, not code 128', () => {
-		const m = measurePixels(image(40, 30, (x) => (x % 2 ? [255, 255, 255] : [0, 0, 0])), BOX);
-		expect(m.background.luminance).toBeCloseTo(0.5, 10);
-		expect(m.background.stops).toBeCloseTo(Math.log2(0.5 / MID_GREY), 10);
+	it('averages light, not code values: fine texture of codes 40 and 220 is their mean linear light', () => {
+		// IEC 61966-2-1: code 40 → 0.02122, code 220 → 0.71569; their mean 0.36846 (hand-worked); the mean code 130
+		// would decode to only 0.2232, 0.72 stop darker
+		// texture finer than a grid cell (400 px wide: 40 cells of 10 px) is averaged in linear light within the cell
+		const m = measurePixels(image(400, 300, (x) => (x % 2 ? [220, 220, 220] : [40, 40, 40])), BOX);
+		expect(m.background.luminance).toBeCloseTo(0.36846, 4);
+		expect(m.background.stops).toBeCloseTo(Math.log2(0.36846 / MID_GREY), 3);
+	});
+
+	it('leaves clipped and crushed pixels out of a level and counts them per region', () => {
+		// a background of mid-grey (code 118) with every fourth pixel blown white and every fourth black
+		const m = measurePixels(image(400, 320, (x) => (x % 4 === 0 ? [255, 255, 255] : x % 4 === 1 ? [0, 0, 0] : [118, 118, 118])), BOX);
+		// IEC 61966-2-1: code 118 → 0.1812
+		expect(m.background.luminance).toBeCloseTo(0.1812, 3);
+		expect(m.background.clippedShare).toBeCloseTo(0.25, 2);
+		expect(m.background.crushedShare).toBeCloseTo(0.25, 2);
+		// the guard: a channel at code 250 or above is clipped, even when the others are not
+		const red = measurePixels(uniform([252, 90, 40]), BOX);
+		expect(red.subject.clippedShare).toBe(1);
+		expect(measurePixels(uniform([249, 90, 40]), BOX).subject.clippedShare).toBe(0);
 	});
 
 	it('splits the subject box from the rest of the frame', () => {
@@ -55,9 +72,9 @@ describe('measurePixels', () => {
 		const m = measurePixels(image(width, height, (x, y) => (inside(x, y) ? [200, 200, 200] : [50, 50, 50])), BOX);
 		expect(m.subject.pixelCount).toBe((x1 - x0) * (y1 - y0));
 		expect(m.background.pixelCount).toBe(width * height - (x1 - x0) * (y1 - y0));
-		expect(m.subject.luminance).toBeCloseTo(culoriY([200, 200, 200]), 10);
-		expect(m.background.luminance).toBeCloseTo(culoriY([50, 50, 50]), 10);
-		expect(m.subject.stops - m.background.stops).toBeCloseTo(Math.log2(culoriY([200, 200, 200]) / culoriY([50, 50, 50])), 10);
+		expect(m.subject.luminance).toBeCloseTo(culoriY([200, 200, 200]), 7);
+		expect(m.background.luminance).toBeCloseTo(culoriY([50, 50, 50]), 7);
+		expect(m.subject.stops - m.background.stops).toBeCloseTo(Math.log2(culoriY([200, 200, 200]) / culoriY([50, 50, 50])), 6);
 	});
 
 	it('counts a luma histogram over every pixel', () => {

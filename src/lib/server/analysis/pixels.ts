@@ -1,33 +1,43 @@
-// Measures an 8-bit sRGB image: luma histogram, clipping, and the subject's and background's linear light and colour.
+// Measures an 8-bit sRGB image in linear light: histogram, clipping, a grid of cell levels, and robust subject and background levels.
 import { relativeLuminance, srgbDecode } from '../../exposure/index';
 import { measureColour } from './colour';
+import { cellPlaces, encodeGrid, gridSizeFor, type Cells, type LightGrid } from './light-grid';
 import { toPixelBounds, type Box } from './region';
 
 export type LinearRgb = [number, number, number];
 
 export interface RegionStats {
-	/** Mean relative luminance Y (0–1) of the linear-light pixels. */
+	/** Relative luminance Y (0–1): 18 % grey × 2^stops. */
 	luminance: number;
-	/** That level in stops relative to 18 % grey (0 = mid-grey, −1 = half as bright). */
+	/**
+	 * Level in stops relative to 18 % grey (0 = mid-grey, −1 = half as bright): the 10 %-trimmed mean of the
+	 * region's cell levels, each cell the log of the mean linear light of its usable pixels.
+	 */
 	stops: number;
-	/** Mean linear-light sRGB, 0–1 per channel. */
+	/** Mean linear-light sRGB of the usable pixels, 0–1 per channel. */
 	rgb: LinearRgb;
 	/** Apparent colour temperature of the mean colour, K; null when too dark or too far from any white light. */
 	cct: number | null;
 	/** Distance of the mean colour from the Planckian locus (CIE 1960 uv); null when too dark. */
 	duv: number | null;
 	pixelCount: number;
+	/** Share (0–1) of the region's pixels with a channel at the top codes: left out of every level. */
+	clippedShare: number;
+	/** Share (0–1) of the region's pixels with every channel at the bottom codes: left out of every level. */
+	crushedShare: number;
 }
 
 export interface PixelMeasures {
 	/** Counts per BT.709 luma code value 0–255 of the analysis image. */
 	histogram: number[];
-	/** Percent of pixels with a channel at the top code (blown). */
+	/** Percent of pixels with a channel at the top codes (blown). */
 	clippedHighlights: number;
-	/** Percent of pixels with every channel at the bottom code (blocked). */
+	/** Percent of pixels with every channel at the bottom codes (blocked). */
 	clippedShadows: number;
 	subject: RegionStats;
 	background: RegionStats;
+	/** Cell levels for comparing two frames of the same scene (grading's pair measures). */
+	grid: LightGrid;
 }
 
 export interface RgbImage {
@@ -43,9 +53,13 @@ export const MID_GREY = 0.18;
 
 // The darkest level a non-zero 8-bit code can carry; a black region is floored here instead of −∞ stops.
 const FLOOR_LUMINANCE = srgbDecode(1 / 255);
-// A channel at 254–255 is blown; every channel at 0–1 is blocked. common practice, no published source
-const HIGHLIGHT_CODE = 254;
-const SHADOW_CODE = 1;
+/** A channel at or above this code is clipped: cameras clip per channel, often a few codes below 255. common practice, no published source */
+export const CLIP_CODE = 250;
+/** Every channel at or below this code is crushed to black: its level is noise. common practice, no published source */
+export const CRUSH_CODE = 2;
+// a cell with fewer usable pixels than this share says little about its light
+const MIN_USABLE_SHARE = 0.5;
+const TRIM = 0.1;
 
 // 8-bit code to linear light, through the IEC 61966-2-1 transfer function of the exposure engine
 const LINEAR = Float64Array.from({ length: 256 }, (_, code) => srgbDecode(code / 255));
@@ -55,38 +69,66 @@ const W_R = relativeLuminance([1, 0, 0]);
 const W_G = relativeLuminance([0, 1, 0]);
 const W_B = relativeLuminance([0, 0, 1]);
 
-interface Accumulator {
-	r: number;
-	g: number;
-	b: number;
-	n: number;
-}
-
 export function stopsFromMidGrey(luminance: number): number {
 	return Math.log2(Math.max(luminance, FLOOR_LUMINANCE) / MID_GREY);
 }
 
-function summarise(acc: Accumulator): RegionStats {
-	const n = Math.max(acc.n, 1);
-	const rgb: LinearRgb = [acc.r / n, acc.g / n, acc.b / n];
-	// luminance is linear in R, G, B, so Y of the mean colour equals the mean of the pixels' Y
-	const luminance = relativeLuminance(rgb);
-	return { luminance, stops: stopsFromMidGrey(luminance), rgb, ...measureColour(rgb, luminance), pixelCount: acc.n };
+/** Mean of the middle 80 % of the values (a 10 %-trimmed mean); NaN for none. */
+export function trimmedMean(values: number[]): number {
+	if (values.length === 0) return NaN;
+	const sorted = [...values].sort((a, b) => a - b);
+	const cut = Math.floor(sorted.length * TRIM);
+	const kept = sorted.slice(cut, sorted.length - cut);
+	return kept.reduce((s, v) => s + v, 0) / kept.length;
 }
 
-/** One pass over the pixels; the subject box is in fractions of this image. */
+interface Sums {
+	r: Float64Array;
+	g: Float64Array;
+	b: Float64Array;
+	usable: Uint32Array;
+	clipped: Uint32Array;
+	crushed: Uint32Array;
+	total: Uint32Array;
+}
+
+function sums(n: number): Sums {
+	return { r: new Float64Array(n), g: new Float64Array(n), b: new Float64Array(n), usable: new Uint32Array(n), clipped: new Uint32Array(n), crushed: new Uint32Array(n), total: new Uint32Array(n) };
+}
+
+// Region accumulators: 0 background, 1 subject (exact box in pixels)
+function regionStats(acc: Sums, k: number, cellLevels: number[]): RegionStats {
+	const usable = acc.usable[k];
+	const total = Math.max(acc.total[k], 1);
+	const rgb: LinearRgb = usable ? [acc.r[k] / usable, acc.g[k] / usable, acc.b[k] / usable] : [0, 0, 0];
+	const robust = trimmedMean(cellLevels);
+	const stops = Number.isFinite(robust) ? robust : stopsFromMidGrey(relativeLuminance(rgb));
+	const luminance = MID_GREY * 2 ** stops;
+	return {
+		luminance,
+		stops,
+		rgb,
+		...measureColour(rgb, relativeLuminance(rgb)),
+		pixelCount: acc.total[k],
+		clippedShare: acc.clipped[k] / total,
+		crushedShare: acc.crushed[k] / total
+	};
+}
+
+/** One pass over the pixels: each is linearised before anything is averaged. The box is in fractions of this image. */
 export function measurePixels(image: RgbImage, subjectBox: Box): PixelMeasures {
 	const { data, width, height, channels } = image;
 	if (channels < 3) throw new RangeError('measurePixels needs RGB data');
 	const { x0, y0, x1, y1 } = toPixelBounds(subjectBox, width, height);
+	const { cols, rows } = gridSizeFor(width, height);
+	const colOf = Uint16Array.from({ length: width }, (_, x) => Math.floor((x * cols) / width));
 	const histogram = new Array<number>(256).fill(0);
-	const subject: Accumulator = { r: 0, g: 0, b: 0, n: 0 };
-	const background: Accumulator = { r: 0, g: 0, b: 0, n: 0 };
-	let blown = 0;
-	let blocked = 0;
+	const cells = sums(cols * rows);
+	const regions = sums(2);
 
 	for (let y = 0; y < height; y++) {
 		const rowInBox = y >= y0 && y < y1;
+		const rowBase = Math.floor((y * rows) / height) * cols;
 		let i = y * width * channels;
 		for (let x = 0; x < width; x++, i += channels) {
 			const r = data[i];
@@ -94,14 +136,51 @@ export function measurePixels(image: RgbImage, subjectBox: Box): PixelMeasures {
 			const b = data[i + 2];
 			// BT.709 luma: the same weights applied to the encoded values, as camera histograms show
 			histogram[Math.min(255, Math.round(W_R * r + W_G * g + W_B * b))]++;
-			if (r >= HIGHLIGHT_CODE || g >= HIGHLIGHT_CODE || b >= HIGHLIGHT_CODE) blown++;
-			else if (r <= SHADOW_CODE && g <= SHADOW_CODE && b <= SHADOW_CODE) blocked++;
-			const acc = rowInBox && x >= x0 && x < x1 ? subject : background;
-			acc.r += LINEAR[r];
-			acc.g += LINEAR[g];
-			acc.b += LINEAR[b];
-			acc.n++;
+			const c = rowBase + colOf[x];
+			const k = rowInBox && x >= x0 && x < x1 ? 1 : 0;
+			cells.total[c]++;
+			regions.total[k]++;
+			if (r >= CLIP_CODE || g >= CLIP_CODE || b >= CLIP_CODE) {
+				cells.clipped[c]++;
+				regions.clipped[k]++;
+			} else if (r <= CRUSH_CODE && g <= CRUSH_CODE && b <= CRUSH_CODE) {
+				cells.crushed[c]++;
+				regions.crushed[k]++;
+			} else {
+				const lr = LINEAR[r];
+				const lg = LINEAR[g];
+				const lb = LINEAR[b];
+				cells.r[c] += lr;
+				cells.g[c] += lg;
+				cells.b[c] += lb;
+				cells.usable[c]++;
+				regions.r[k] += lr;
+				regions.g[k] += lg;
+				regions.b[k] += lb;
+				regions.usable[k]++;
+			}
 		}
+	}
+
+	const n = cols * rows;
+	const grid: Cells = { cols, rows, r: new Float32Array(n), g: new Float32Array(n), b: new Float32Array(n), clipped: new Float32Array(n), crushed: new Float32Array(n) };
+	const places = cellPlaces(cols, rows, subjectBox);
+	const levels: [number[], number[]] = [[], []];
+	let blown = 0;
+	let blocked = 0;
+	for (let c = 0; c < n; c++) {
+		const u = cells.usable[c];
+		const total = Math.max(cells.total[c], 1);
+		grid.r[c] = u ? cells.r[c] / u : NaN;
+		grid.g[c] = u ? cells.g[c] / u : NaN;
+		grid.b[c] = u ? cells.b[c] / u : NaN;
+		grid.clipped[c] = cells.clipped[c] / total;
+		grid.crushed[c] = cells.crushed[c] / total;
+		blown += cells.clipped[c];
+		blocked += cells.crushed[c];
+		if (u / total < MIN_USABLE_SHARE || places[c] === 'edge') continue;
+		const y = W_R * grid.r[c] + W_G * grid.g[c] + W_B * grid.b[c];
+		levels[places[c] === 'subject' ? 1 : 0].push(stopsFromMidGrey(y));
 	}
 
 	const total = width * height;
@@ -109,7 +188,8 @@ export function measurePixels(image: RgbImage, subjectBox: Box): PixelMeasures {
 		histogram,
 		clippedHighlights: (100 * blown) / total,
 		clippedShadows: (100 * blocked) / total,
-		subject: summarise(subject),
-		background: summarise(background)
+		subject: regionStats(regions, 1, levels[1]),
+		background: regionStats(regions, 0, levels[0]),
+		grid: encodeGrid(grid)
 	};
 }

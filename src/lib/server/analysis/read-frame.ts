@@ -112,10 +112,10 @@ async function readChecked(bytes: Uint8Array, options: ReadFrameOptions): Promis
 		}
 	}
 
-	// Decoding is the slow part: start it at once, read the header and Exif meanwhile.
-	const decoding = decodeForAnalysis(bytes, limits);
-	decoding.catch(() => {}); // awaited below; this only stops an early rejection going unhandled
+	// The header (no decoding) sets the decode size; decoding is the slow part, so Exif is read meanwhile.
 	const header = await readHeader(bytes, limits);
+	const decoding = decodeForAnalysis(bytes, limits, header);
+	decoding.catch(() => {}); // awaited below; this only stops an early rejection going unhandled
 	if (tags === undefined) {
 		const source = exifSource(type.kind, bytes, header);
 		tags = source ? await parseExif(source, notes) : null;

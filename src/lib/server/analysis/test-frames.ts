@@ -1,6 +1,6 @@
 // Test helper: builds frames with known light levels, colours and Exif, as a camera would write them.
+import { converter } from 'culori';
 import sharp, { type Exif } from 'sharp';
-import { srgbEncode } from '../../exposure/index';
 import { DEFAULT_SUBJECT_BOX, toPixelBounds, type Box } from './region';
 import type { LinearRgb } from './pixels';
 
@@ -57,8 +57,13 @@ export function levelOf(spec: { stops: number } | { rgb: LinearRgb }): LinearRgb
 	return [v, v, v];
 }
 
-function encode(rgb: LinearRgb): [number, number, number] {
-	return rgb.map((c) => Math.round(255 * srgbEncode(Math.min(1, Math.max(0, c))))) as [number, number, number];
+// culori's IEC 61966-2-1 encoding, independent of the engine's: a wrong sRGB curve in the engine shows up as a wrong level
+const toSrgb = converter('rgb');
+
+function encode([r, g, b]: LinearRgb): [number, number, number] {
+	const clamp = (v: number) => Math.min(1, Math.max(0, v));
+	const e = toSrgb({ mode: 'lrgb', r: clamp(r), g: clamp(g), b: clamp(b) });
+	return [e.r, e.g, e.b].map((v) => Math.round(255 * v)) as [number, number, number];
 }
 
 // Exif stores RATIONAL/SRATIONAL; pick the small denominator cameras use (1/500, 56/10, -1/3)
@@ -70,7 +75,7 @@ export function toRational(value: number): string {
 	return `${Math.round(value * 1e6)}/1000000`;
 }
 
-function buildExif(exif: TestExif): Exif {
+export function buildExif(exif: TestExif): Exif {
 	const ifd0: Record<string, string> = {};
 	const ifd2: Record<string, string> = {};
 	const put = (target: Record<string, string>, tag: string, value: string | number | undefined, asRational = false) => {

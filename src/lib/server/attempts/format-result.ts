@@ -30,6 +30,8 @@ export function formatValue(value: number, unit: CriterionResult['unit']): strin
 			return `${Math.round(value)} mireds`;
 		case 'flash':
 			return value ? 'fired' : 'not fired';
+		case 'percent':
+			return `${Math.round(value)} %`;
 	}
 }
 

@@ -14,7 +14,10 @@ const EXAMPLES: Record<string, unknown> = {
 	'focal-min': { kind: 'focal-min', mm35: 85 },
 	'flash-evidence': { kind: 'flash-evidence' },
 	'background-cooler': { kind: 'background-cooler', minMired: 60 },
-	bracket: { kind: 'bracket', offsets: [0, -1, 1] }
+	bracket: { kind: 'bracket', offsets: [0, -1, 1] },
+	sync: { kind: 'sync' },
+	'flash-share': { kind: 'flash-share', share: 0.5 },
+	'subject-clipping': { kind: 'subject-clipping' }
 };
 
 const parse = (value: unknown) => criterionSchema.parse(value) as Criterion;

@@ -1,7 +1,8 @@
 // Says each criterion in plain words for learners (the Assignment card shows these).
 import { formatAperture, formatShutter } from '../../exposure/index';
+import { targetRatio } from './criteria/flash-share';
 import { formatAmount, formatMired, formatMm, formatOffset, formatStopAmount, formatTarget } from './format';
-import { criterionSchema, type Criterion, type CriterionInput } from './spec';
+import { criterionSchema, DEFAULT_SYNC_SPEED, type Criterion, type CriterionInput } from './spec';
 
 /** Accepts a criterion as stored or as an author is still typing it (defaults applied here). */
 export function describeCriterion(criterion: Criterion | CriterionInput): string {
@@ -17,7 +18,7 @@ function describeParsed(c: Criterion): string {
 			return `Set the ambient exposure ${formatTarget(c.stops, c.tolerance)} stops under ${against}, so the background goes deep.`;
 		}
 		case 'subject-lift':
-			return `Light the subject so they stand at least ${formatStopAmount(c.minStops)} brighter than the background.`;
+			return `Light the subject so the flash lifts them at least ${formatStopAmount(c.minStops)} above the ambient alone, standing out of the darker background (measured against your ambient reference frame).`;
 		case 'background-drop':
 			return `The background must darken between the reference and the lit frame by what your settings say, within ${formatStopAmount(c.tolerance)} (frames straight from the camera).`;
 		case 'shutter-min':
@@ -37,6 +38,16 @@ function describeParsed(c: Criterion): string {
 			return 'Light the subject with flash; if your trigger leaves no record in the file, a mentor will confirm it from the picture.';
 		case 'background-cooler':
 			return `Make the background render at least ${formatMired(c.minMired)} cooler (bluer) than the subject: low Kelvin white balance and a warming gel on the flash.`;
+		case 'sync':
+			return c.highSpeedSync
+				? `High-speed sync allowed: shutters above ${c.syncSpeed ? `${formatShutter(c.syncSpeed)} s` : 'your sync speed'} pass, and the verdict says what they cost the flash.`
+				: `Keep the shutter at or below your camera’s flash sync speed (${formatShutter(c.syncSpeed ?? DEFAULT_SYNC_SPEED)} s unless the assignment says otherwise).`;
+		case 'flash-share':
+			return c.share !== undefined
+				? `Balance your lights so about ${Math.round(c.share * 100)} % of the subject’s light comes from the flash (± ${formatAmount(c.tolerance)} stop of flash against ambient).`
+				: `Balance your lights so the flash is ${formatOffset(targetRatio(c))} stops against the ambient on the subject (± ${formatAmount(c.tolerance)}).`;
+		case 'subject-clipping':
+			return `Keep the flash-lit subject from blowing out: at most ${c.maxPercent} % of it clipped to white.`;
 		case 'bracket':
 			return `Shoot a bracket at ${c.offsets.map(formatOffset).join(', ')} EV from the first frame (each within ± ${formatAmount(c.tolerance)}).`;
 	}

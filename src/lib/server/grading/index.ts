@@ -1,5 +1,5 @@
 // Grading an Attempt against an Assignment spec. Server only; no database (callers store the result).
-export { grade, overallVerdict, type GradeResult, type Verdict } from './grade';
+export { grade, overallVerdict, type GradeOptions, type GradeResult, type Verdict } from './grade';
 export { describeCriterion } from './describe';
 export {
 	assignmentSpecSchema,
@@ -16,4 +16,6 @@ export {
 	type SpecResult
 } from './spec';
 export { formatSpecErrors, SpecValidationError, type SpecError } from './spec-errors';
-export type { CriterionResult, CriterionVerdict, Comparison, Unit } from './result';
+export type { CriterionResult, CriterionVerdict, Comparison, Evidence, FlashUsed, Unit } from './result';
+export { CRITERION_HELP } from './help';
+export { DEFAULT_SYNC_SPEED } from './spec';

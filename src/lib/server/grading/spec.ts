@@ -28,7 +28,8 @@ export const ambientUnderSchema = z
 	})
 	.strict();
 
-export const subjectLiftSchema = z.object({ kind: z.literal('subject-lift'), minStops: stops(10), ...graded }).strict();
+/** The flash's lift on the subject, against the same subject in the ambient reference frame. */
+export const subjectLiftSchema = z.object({ kind: z.literal('subject-lift'), minStops: stops(10), ...compared }).strict();
 
 export const backgroundDropSchema = z
 	.object({ kind: z.literal('background-drop'), tolerance: positiveStops(3).default(0.5), ...compared })
@@ -57,7 +58,41 @@ export const flashEvidenceSchema = z
 	.strict();
 
 export const backgroundCoolerSchema = z
-	.object({ kind: z.literal('background-cooler'), minMired: z.number().min(0).max(1000), ...graded })
+	.object({ kind: z.literal('background-cooler'), minMired: z.number().min(0).max(1000), ...compared })
+	.strict();
+
+/** Default camera sync speed when neither the criterion nor the spec gives one. common practice, no published source */
+export const DEFAULT_SYNC_SPEED = 1 / 250;
+
+/** Shutter at or below the camera's sync speed, unless the assignment is a high-speed-sync one. */
+export const syncSchema = z
+	.object({
+		kind: z.literal('sync'),
+		/** The camera's sync speed in seconds (default: the spec's syncSpeed, else 1/250 s). */
+		syncSpeed: seconds.optional(),
+		/** High-speed sync allowed: shutters above sync pass, and the verdict states the flash power they cost. */
+		highSpeedSync: z.boolean().default(false),
+		...graded
+	})
+	.strict();
+
+/** The flash's share of the subject's exposure (or the flash:ambient ratio in stops), measured from the pair. */
+export const flashShareSchema = z
+	.object({
+		kind: z.literal('flash-share'),
+		/** Share of the subject's light that comes from the flash, 0.02–0.98 (0.5 = flash and ambient equal). */
+		share: z.number().min(0.02).max(0.98).optional(),
+		/** Or: flash over ambient on the subject in stops (0 = equal, +1 = flash twice the ambient). */
+		ratioStops: stops(6).optional(),
+		/** ± stops of the flash:ambient ratio. */
+		tolerance: positiveStops(3).default(0.5),
+		...compared
+	})
+	.strict();
+
+/** At most this share of the flash-lit subject blown out (clipped). */
+export const subjectClippingSchema = z
+	.object({ kind: z.literal('subject-clipping'), maxPercent: z.number().min(0).max(100).default(10), ...compared })
 	.strict();
 
 export const bracketSchema = z
@@ -71,7 +106,8 @@ export const bracketSchema = z
 	})
 	.strict();
 
-export const criterionSchema = z.discriminatedUnion('kind', [
+// One line per criterion kind: add its schema here, its evaluator in criteria/index.ts, its words in describe.ts.
+const CRITERION_SCHEMAS = [
 	ambientUnderSchema,
 	subjectLiftSchema,
 	backgroundDropSchema,
@@ -83,8 +119,13 @@ export const criterionSchema = z.discriminatedUnion('kind', [
 	focalMinSchema,
 	flashEvidenceSchema,
 	backgroundCoolerSchema,
-	bracketSchema
-]);
+	bracketSchema,
+	syncSchema,
+	flashShareSchema,
+	subjectClippingSchema
+] as const;
+
+export const criterionSchema = z.discriminatedUnion('kind', CRITERION_SCHEMAS);
 
 export const CRITERION_KINDS = criterionSchema.options.map((o) => o.shape.kind.value);
 
@@ -92,7 +133,7 @@ export type Criterion = z.output<typeof criterionSchema>;
 export type CriterionInput = z.input<typeof criterionSchema>;
 export type CriterionKind = Criterion['kind'];
 
-function checkReferences(spec: { frames: string[]; sceneEv?: number; criteria: Criterion[] }, ctx: z.RefinementCtx): void {
+function checkReferences(spec: { frames: string[]; sceneEv?: number; syncSpeed?: number; criteria: Criterion[] }, ctx: z.RefinementCtx): void {
 	const known = new Set(spec.frames);
 	const seen = new Set<string>();
 	spec.frames.forEach((name, i) => {
@@ -114,12 +155,9 @@ function checkReferences(spec: { frames: string[]; sceneEv?: number; criteria: C
 			return;
 		}
 		mustExist(c.frame, at('frame'));
-		if (c.kind === 'aperture-range') {
-			if (c.min === undefined && c.max === undefined) ctx.addIssue({ code: 'custom', path: at(), message: 'needs min, max or both' });
-			if (c.min !== undefined && c.max !== undefined && c.min > c.max) ctx.addIssue({ code: 'custom', path: at('min'), message: `must not be above max (f/${c.max})` });
-		}
-		if (c.kind !== 'ambient-under' && c.kind !== 'background-drop' && c.kind !== 'flash-evidence') return;
-		mustExist(c.reference, at('reference'));
+		KIND_CHECKS[c.kind]?.(c as never, { spec, at, add: (path, message) => ctx.addIssue({ code: 'custom', path, message }) });
+		if (!('reference' in criterionShape(c.kind))) return;
+		if ('reference' in c) mustExist(c.reference, at('reference'));
 		const { frame, reference } = resolveFrames(c, spec);
 		if (reference !== null && reference === frame) {
 			ctx.addIssue({ code: 'custom', path: at('reference'), message: `must be a different frame from the graded one ("${frame}")` });
@@ -133,12 +171,35 @@ function checkReferences(spec: { frames: string[]; sceneEv?: number; criteria: C
 	});
 }
 
+function criterionShape(kind: CriterionKind): Record<string, unknown> {
+	return CRITERION_SCHEMAS.find((s) => s.shape.kind.value === kind)?.shape ?? {};
+}
+
+interface CheckTools {
+	spec: { frames: string[] };
+	at: (...rest: (string | number)[]) => (string | number)[];
+	add: (path: (string | number)[], message: string) => void;
+}
+
+// Checks of one kind's fields that zod's shape alone cannot say.
+const KIND_CHECKS: { [K in CriterionKind]?: (c: Extract<Criterion, { kind: K }>, t: CheckTools) => void } = {
+	'aperture-range': (c, { at, add }) => {
+		if (c.min === undefined && c.max === undefined) add(at(), 'needs min, max or both');
+		if (c.min !== undefined && c.max !== undefined && c.min > c.max) add(at('min'), `must not be above max (f/${c.max})`);
+	},
+	'flash-share': (c, { at, add }) => {
+		if ((c.share === undefined) === (c.ratioStops === undefined)) add(at(), 'needs either share (0.02–0.98) or ratioStops, not both');
+	}
+};
+
 export const assignmentSpecSchema = z
 	.object({
 		title: z.string().max(200).optional(),
 		frames: z.array(frameName).min(1).max(12),
 		/** Scene EV100 for ambient-under when no reference frame is shot. */
 		sceneEv: stops(25).optional(),
+		/** The camera's flash sync speed in seconds, for sync and for advice (default 1/250 s). */
+		syncSpeed: seconds.optional(),
 		criteria: z.array(criterionSchema).min(1).max(40)
 	})
 	.strict()

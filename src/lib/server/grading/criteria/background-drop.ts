@@ -1,14 +1,20 @@
 // background-drop: the background's measured darkening from reference to lit frame must match the settings' EV change.
-import { ev100 } from '../../../exposure/index';
 import { formatAmount, formatStops } from '../format';
-import { frameWords, isResult, lookupFrame, requireExif, requirePixels, type CriterionResult, type GradeContext } from '../result';
+import { frameWords, isResult, lookupFrame, requireExif, requirePair, type CriterionResult, type GradeContext } from '../result';
+import { settingsDrop } from '../pair/index';
 import { resolveFrames, type Criterion } from '../spec';
 
 type BackgroundDrop = Extract<Criterion, { kind: 'background-drop' }>;
 
-// A background this bright in the reference is at or near clipping: its darkening would read short.
-// common practice, no published source
-const NEAR_CLIPPING = 0.8;
+// More than this share of the reference background clipped (a blown sky) and its level cannot be known.
+const MAX_CLIPPED_REFERENCE = 0.2;
+// Background cells disagreeing this much (robust spread, stops) are not the same scene lit the same way.
+const MAX_SPREAD = 0.5;
+// A camera's tone curve makes a drop read this many times larger or smaller than in plain sRGB in the mid-tones
+// (contrasty to flat picture styles). common practice, no published source
+const CURVE_RANGE = [0.7, 1.45] as const;
+// below this settings change the curve cannot bend the drop by much
+const MIN_D_FOR_CURVE = 0.3;
 
 export function gradeBackgroundDrop(c: BackgroundDrop, ctx: GradeContext): CriterionResult {
 	const { frame: litName, reference: refName } = resolveFrames(c, ctx.spec);
@@ -28,27 +34,33 @@ export function gradeBackgroundDrop(c: BackgroundDrop, ctx: GradeContext): Crite
 	if (isResult(refExif)) return refExif;
 
 	// the pixels follow the settings actually used, so exposure compensation plays no part here
-	const expected = ev100({ aperture: litExif.fNumber, shutter: litExif.exposureTime, iso: litExif.iso }) -
-		ev100({ aperture: refExif.fNumber, shutter: refExif.exposureTime, iso: refExif.iso });
+	const expected = settingsDrop(ref, lit) as number;
 	const withTarget = { ...base, target: expected };
-	const litPixels = requirePixels(lit, litName, withTarget);
-	if (isResult(litPixels)) return litPixels;
-	const refPixels = requirePixels(ref, refName, withTarget);
-	if (isResult(refPixels)) return refPixels;
-
-	const measured = refPixels.background.stops - litPixels.background.stops;
-	const found = `The background got ${formatStops(measured)} ${measured >= 0 ? 'darker' : 'brighter'} from ${frameWords(refName)} to ${frameWords(litName)}; its camera settings account for ${formatStops(expected)} ${expected >= 0 ? 'darker' : 'brighter'}.`;
-	if (refPixels.background.luminance >= NEAR_CLIPPING) {
+	const clipped = ref.pixels?.background.clippedShare ?? 0;
+	if (clipped > MAX_CLIPPED_REFERENCE) {
 		return {
 			...withTarget,
 			verdict: 'unknown',
-			measured,
+			measured: null,
 			missing: [],
-			message: `${found} The reference background is close to pure white, so its real brightness cannot be measured; a mentor will compare the frames by eye.`
+			message: `${Math.round(clipped * 100)} % of the reference background is clipped (pure white, such as a blown sky), so how much it darkened cannot be measured; a mentor will compare the frames by eye.`
 		};
+	}
+	const got = requirePair(ctx, refName, litName, withTarget, 'the background’s darkening');
+	if (isResult(got)) return got;
+	const { pair } = got;
+	const measured = pair.backgroundDrop;
+	const found = `The background got ${formatStops(measured)} ${measured >= 0 ? 'darker' : 'brighter'} from ${frameWords(refName)} to ${frameWords(litName)}; its camera settings account for ${formatStops(expected)} ${expected >= 0 ? 'darker' : 'brighter'}.`;
+	const unknown = (why: string): CriterionResult => ({ ...withTarget, verdict: 'unknown', measured, missing: [], message: `${found} ${why}` });
+	if (pair.backgroundSpread > MAX_SPREAD) {
+		return unknown('Parts of the background changed by very different amounts (the scene or the framing moved between frames, or the flash reached the background), so a mentor will compare the frames by eye.');
 	}
 	if (Math.abs(measured - expected) <= c.tolerance) {
 		return { ...withTarget, verdict: 'pass', measured, missing: [], message: `${found} They agree within ${formatAmount(c.tolerance)} stop, as they should for frames straight from the camera.` };
+	}
+	const ratio = measured / expected;
+	if (Math.abs(expected) >= MIN_D_FOR_CURVE && ratio >= CURVE_RANGE[0] && ratio <= CURVE_RANGE[1]) {
+		return unknown('A camera’s tone curve (its picture style) can stretch or squeeze a change in the JPEG by this much, so the file alone cannot tell; a mentor will compare the frames by eye.');
 	}
 	return {
 		...withTarget,

@@ -1,54 +1,46 @@
-// flash-evidence: the Exif Flash bit, else pixel evidence handed to a mentor (radio triggers often leave the bit unset).
-import { describeFlash, type Frame } from '../../analysis/index';
+// flash-evidence: the flash measured from the pixels (what it added to the subject), with the Exif Flash bit as a footnote.
+import { describeFlash } from '../../analysis/index';
 import { formatStopAmount, formatStops } from '../format';
-import { frameWords, isResult, lookupFrame, type CriterionResult, type GradeContext } from '../result';
+import { frameWords, isResult, judge, lookupFrame, requirePair, type CriterionResult, type GradeContext } from '../result';
+import { shareFromLift } from '../pair/index';
 import { resolveFrames, type Criterion } from '../spec';
 
 type FlashEvidence = Extract<Criterion, { kind: 'flash-evidence' }>;
 
-/** Subject-over-background in the lit frame minus the same in the ambient reference, in stops (null if unmeasured). */
-function liftBeyondAmbient(lit: Frame, ref: Frame | undefined): number | null {
-	if (!lit.pixels) return null;
-	const litLift = lit.pixels.subject.stops - lit.pixels.background.stops;
-	if (!ref?.pixels) return litLift;
-	return litLift - (ref.pixels.subject.stops - ref.pixels.background.stops);
-}
-
 export function gradeFlashEvidence(c: FlashEvidence, ctx: GradeContext): CriterionResult {
 	const { frame: litName, reference: refName } = resolveFrames(c, ctx.spec);
-	const base = {
-		kind: c.kind,
-		target: c.minLiftStops,
-		tolerance: null,
-		unit: 'stops' as const,
-		comparison: 'at-least' as const,
-		frames: refName ? [refName, litName] : [litName]
-	};
+	const base = { kind: c.kind, target: c.minLiftStops, tolerance: null, unit: 'stops' as const, comparison: 'at-least' as const, frames: refName ? [refName, litName] : [litName] };
 	const lit = lookupFrame(ctx, litName, base);
 	if (isResult(lit)) return lit;
-	const ref = refName ? ctx.frames[refName] : undefined;
-	const lift = liftBeyondAmbient(lit, ref);
+	const flash = lit.exif.flash;
+	const bit = flash
+		? flash.fired
+			? `The camera recorded the flash (${describeFlash(flash)}).`
+			: 'The camera did not record a flash firing; many radio triggers leave that unmarked, so the pixels decide.'
+		: 'The file has no Flash tag in its Exif, so the pixels decide.';
+	const missing = flash ? [] : ['Flash'];
 
-	if (lit.exif.flash?.fired) {
-		return { ...base, verdict: 'pass', measured: lift, missing: [], message: `The camera recorded the flash in ${frameWords(litName)} (${describeFlash(lit.exif.flash)}).` };
+	const got = requirePair(ctx, refName, litName, base, 'the flash');
+	if (isResult(got)) return { ...got, missing, message: `${bit} ${got.message}` };
+	const lift = got.pair.lift;
+	if (lift === null) {
+		return { ...base, verdict: 'unknown', measured: null, missing, message: `${bit} The subject box could not be measured in both frames (clipped or too dark), so a mentor will confirm the flash.` };
 	}
-
-	const bit = lit.exif.flash
-		? 'The camera did not record a flash firing; many radio triggers leave that setting unmarked.'
-		: 'The file has no Flash tag in its Exif, so it cannot say whether a flash fired.';
-	const basis = ref?.pixels ? `than in ${frameWords(refName as string)}` : 'than the background';
-	let pixels: string;
-	if (lift === null) pixels = 'Its pixels were not measured either.';
-	else if (lift >= c.minLiftStops) {
-		pixels = `The subject is ${formatStops(lift)} brighter ${ref?.pixels ? 'against the background ' : ''}${basis}, which points to flash (a reflector can do the same).`;
-	} else {
-		pixels = `The subject gains only ${formatStops(lift)} ${ref?.pixels ? 'against the background ' : ''}${basis}, less than the ${formatStopAmount(c.minLiftStops)} flash usually adds.`;
+	const u = got.pair.liftUncertainty;
+	const evidence = { lift, flashShare: shareFromLift(lift), uncertainty: u, blownPercent: 100 * got.pair.blownShare };
+	const verdict = judge(lift, u, { atLeast: c.minLiftStops });
+	const measuredWords = `Measured from the pixels: the subject in ${frameWords(litName)} is ${formatStops(lift)} brighter than the ambient alone would make it (against ${frameWords(refName as string)}).`;
+	if (verdict === 'pass') return { ...base, verdict, measured: lift, missing: [], evidence, message: `${measuredWords} That is your flash at work (a reflector could do the same). ${bit}` };
+	if (verdict === 'unknown') {
+		return { ...base, verdict, measured: lift, missing, evidence, message: `${measuredWords} That is too close to the ${formatStopAmount(c.minLiftStops)} a flash usually adds to call, so a mentor will confirm it. ${bit}` };
 	}
+	const fired = flash?.fired ? ' The camera says a flash fired, but it did not reach the subject: check the trigger channel, the flash’s direction and its distance.' : '';
 	return {
 		...base,
-		verdict: 'unknown',
+		verdict,
 		measured: lift,
-		missing: lit.exif.flash ? [] : ['Flash'],
-		message: `${bit} ${pixels} A mentor will confirm the flash, so this is not counted against you.`
+		missing: [],
+		evidence,
+		message: `${measuredWords} That is less than the ${formatStopAmount(c.minLiftStops)} a flash adds, so no flash light reached the subject.${fired}`
 	};
 }

@@ -1,32 +1,38 @@
-// subject-lift: in the lit frame, how many stops brighter the subject stands than the background.
-import { falloffStops } from '../../../exposure/index';
+// subject-lift: how many stops the flash lifted the subject above the ambient alone, against the same subject in the reference.
 import { formatStopAmount, formatStops } from '../format';
-import { isResult, lookupFrame, requirePixels, type CriterionResult, type GradeContext } from '../result';
+import { liftAdvice, syncSpeedOf } from '../messages';
+import { shareFromLift, ratioFromLift } from '../pair/index';
+import { isResult, judge, requirePair, type CriterionResult, type GradeContext } from '../result';
 import { resolveFrames, type Criterion } from '../spec';
+import { predictedLift, blownNote } from './evidence';
 
 type SubjectLift = Extract<Criterion, { kind: 'subject-lift' }>;
 
 export function gradeSubjectLift(c: SubjectLift, ctx: GradeContext): CriterionResult {
-	const { frame: name } = resolveFrames(c, ctx.spec);
-	const base = { kind: c.kind, target: c.minStops, tolerance: null, unit: 'stops' as const, comparison: 'at-least' as const, frames: [name] };
-	const frame = lookupFrame(ctx, name, base);
-	if (isResult(frame)) return frame;
-	const pixels = requirePixels(frame, name, base);
-	if (isResult(pixels)) return pixels;
-
-	const measured = pixels.subject.stops - pixels.background.stops;
-	const relation = measured >= 0 ? `${formatStops(measured)} brighter than` : `${formatStops(measured)} darker than`;
-	const found = `Your subject stands ${relation} the background; the assignment asks for at least ${formatStopAmount(c.minStops)} brighter.`;
-	if (measured >= c.minStops) {
-		return { ...base, verdict: 'pass', measured, missing: [], message: `${found} They stand out from the darker world around them.` };
+	const { frame: litName, reference: refName } = resolveFrames(c, ctx.spec);
+	const base = { kind: c.kind, target: c.minStops, tolerance: null, unit: 'stops' as const, comparison: 'at-least' as const, frames: refName ? [refName, litName] : [litName] };
+	const got = requirePair(ctx, refName, litName, base, 'the flash’s lift on the subject');
+	if (isResult(got)) return got;
+	const { pair, lit } = got;
+	if (pair.lift === null) {
+		return { ...base, verdict: 'unknown', measured: null, missing: [], message: 'No part of the subject box could be measured in both frames (it is clipped or too dark), so a mentor will judge the lift by eye.' };
 	}
-	// inverse-square: halving the flash distance gives this many stops more light on the subject
-	const halfDistanceGain = falloffStops(1, 2);
-	return {
-		...base,
-		verdict: 'fail',
-		measured,
-		missing: [],
-		message: `${found} Put about ${formatStops(c.minStops - measured)} more flash on the subject: raise its power, or bring it closer (half the distance gives ${halfDistanceGain} stops more), or darken the ambient further with a faster shutter.`
+	const lift = pair.lift;
+	const evidence = {
+		lift,
+		flashShare: shareFromLift(lift),
+		ratioStops: Number.isFinite(ratioFromLift(lift)) ? ratioFromLift(lift) : undefined,
+		uncertainty: pair.liftUncertainty,
+		predictedLift: predictedLift(ctx, got.ref, lit, lift) ?? undefined,
+		blownPercent: 100 * pair.blownShare
 	};
+	const verdict = judge(lift, pair.liftUncertainty, { atLeast: c.minStops });
+	const found = `The flash lifted your subject ${formatStops(lift)} above the ambient light alone (measured against the same subject in the reference frame, so skin and clothing tones do not count); the assignment asks for at least ${formatStopAmount(c.minStops)}.`;
+	const note = blownNote(pair.blownShare);
+	if (verdict === 'pass') return { ...base, verdict, measured: lift, missing: [], evidence, message: `${found} They stand out from the darker world around them.${note}` };
+	if (verdict === 'unknown') {
+		return { ...base, verdict, measured: lift, missing: [], evidence, message: `${found} That is within the measuring uncertainty (± ${formatStops(pair.liftUncertainty)}) of the target, so a mentor will decide.${note}` };
+	}
+	const advice = liftAdvice({ exposureTime: lit.exif.exposureTime, lift, wanted: c.minStops }, syncSpeedOf(ctx.spec));
+	return { ...base, verdict, measured: lift, missing: [], evidence, message: `${found} ${advice}${note}` };
 }

@@ -1,0 +1,51 @@
+// flash-share: the flash's share of the subject's light (or the flash:ambient ratio), measured from the reference/lit pair.
+import { mix } from '../../../exposure/index';
+import { formatAmount, formatStops } from '../format';
+import { ratioFromLift, shareFromLift } from '../pair/index';
+import { isResult, judge, requirePair, type CriterionResult, type GradeContext } from '../result';
+import { resolveFrames, type Criterion } from '../spec';
+
+type FlashShare = Extract<Criterion, { kind: 'flash-share' }>;
+
+const percent = (share: number) => `${Math.round(share * 100)} %`;
+
+/** Target flash:ambient ratio in stops: given directly, or from a share s as log2(s / (1 − s)). */
+export function targetRatio(c: FlashShare): number {
+	if (c.ratioStops !== undefined) return c.ratioStops;
+	const s = c.share as number;
+	return Math.log2(s / (1 - s));
+}
+
+export function gradeFlashShare(c: FlashShare, ctx: GradeContext): CriterionResult {
+	const { frame: litName, reference: refName } = resolveFrames(c, ctx.spec);
+	const target = targetRatio(c);
+	const base = { kind: c.kind, target, tolerance: c.tolerance, unit: 'stops' as const, comparison: 'within' as const, frames: refName ? [refName, litName] : [litName] };
+	const got = requirePair(ctx, refName, litName, base, 'the flash’s share of the subject’s light');
+	if (isResult(got)) return got;
+	const lift = got.pair.lift;
+	if (lift === null) {
+		return { ...base, verdict: 'unknown', measured: null, missing: [], message: 'No part of the subject box could be measured in both frames (clipped or too dark), so a mentor will judge the balance by eye.' };
+	}
+	// judged on the lift, where the measuring uncertainty is even: a ratio r gives a lift of mix(0, r)
+	const lo = mix({ ambientStops: 0, flashStops: target - c.tolerance });
+	const hi = mix({ ambientStops: 0, flashStops: target + c.tolerance });
+	const verdict = judge(lift, got.pair.liftUncertainty, { atLeast: lo, atMost: hi });
+	const ratio = ratioFromLift(lift);
+	const share = shareFromLift(lift);
+	const measured = Number.isFinite(ratio) ? ratio : null;
+	const evidence = { lift, flashShare: share, ratioStops: measured ?? undefined, uncertainty: got.pair.liftUncertainty };
+	const wanted = c.share !== undefined ? `about ${percent(c.share)} from the flash` : `flash ${formatAmount(target)} stops over the ambient`;
+	const found = `The flash gave ${percent(share)} of the light on your subject (flash ${measured === null ? 'nothing' : `${measured >= 0 ? '' : '−'}${formatStops(measured)} ${measured >= 0 ? 'over' : 'under'} the ambient`}); the assignment asks for ${wanted}, ± ${formatAmount(c.tolerance)} stop.`;
+	if (verdict === 'pass') return { ...base, verdict, measured, missing: [], evidence, message: `${found} A good balance of your two lights.` };
+	if (verdict === 'unknown') return { ...base, verdict, measured, missing: [], evidence, message: `${found} That is too close to the edge of the range to call, so a mentor will decide.` };
+	const more = lift < lo;
+	const change = measured === null ? null : Math.abs(target - measured);
+	return {
+		...base,
+		verdict,
+		measured,
+		missing: [],
+		evidence,
+		message: `${found} ${more ? 'Give the flash more' : 'Give the flash less'} power${change !== null ? ` (about ${formatStops(change)})` : ''}, or move it ${more ? 'closer' : 'back'}; a change of shutter speed within sync moves only the ambient.`
+	};
+}

@@ -1,0 +1,181 @@
+// Measures what the flash added: the lit frame against the ambient reference, cell by cell, in linear light.
+//
+// The reference shows the scene in ambient light only. Learned from the background (calibration.ts), it predicts
+// the ambient-only lit frame; whatever the lit frame holds above that prediction is the flash's (Petschnigg et al.
+// and Eisemann & Durand, SIGGRAPH 2004: the flash's contribution is the difference in linear light). The subject's
+// lift is measured against the same subject in the reference, so dark skin and dark kit are measured as fairly as
+// light ones, and the subject box is only a search area: the lift is the median over the cells the flash changed.
+// Limits: the frames must show the same scene from the same place (a tripod or a steady hand: cells are ~2.5 % of
+// the frame); subject movement between frames blurs the measure; the flash must not light the background; white
+// balance must be the same in both frames; clipped and crushed cells cannot be measured and are left out and counted.
+import { cellPlaces, decodeGrid, type Box, type Cells, type PixelReport } from '../../analysis/index';
+import { calibrate, type Calibration, type LevelPair } from './calibration';
+import { median, quantile, robustSpread } from './stats';
+
+export interface PairMeasure {
+	/** Exif settings difference, stops (+ = lit frame darker); null when Exif cannot tell. */
+	expectedDrop: number | null;
+	/** Median darkening of the background cells from reference to lit, in sRGB-decoded stops. */
+	backgroundDrop: number;
+	/** Robust spread of the background cells' darkening, stops: large when the frames do not show the same scene. */
+	backgroundSpread: number;
+	backgroundCells: number;
+	/** Share (0–1) of the background cells that could be compared (neither clipped nor crushed in either frame). */
+	backgroundUsable: number;
+	/** Whether the curve's slope was learned from the pair; otherwise plain sRGB was assumed. */
+	slopeLearned: boolean;
+	/** Stops the flash lifted the subject above the ambient alone (scene stops); null when no subject cell is usable. */
+	lift: number | null;
+	/** ± stops this lift may be off by: noise of the background cells plus the tone curve's uncertainty. */
+	liftUncertainty: number;
+	/** Cells judged to be the flash-lit subject (and of the box, usable). */
+	subjectCells: number;
+	boxCells: number;
+	/** Share of the flash-lit subject the flash blew out (clipped in the lit frame, not in the reference). */
+	blownShare: number;
+	/** Mireds warmer the light on the subject is than the ambient (flash and ambient mixed, against ambient alone); null when unmeasurable. */
+	warmerMired: number | null;
+	/** Lift of each colour channel, stops (R, G, B); null when unmeasurable. */
+	channelLift: [number, number, number] | null;
+}
+
+export type PairResult = { ok: true; pair: PairMeasure } | { ok: false; reason: string };
+
+// A cell is compared only when almost all its pixels are usable in both frames.
+const MAX_CLIPPED = 0.02;
+const MAX_CRUSHED = 0.02;
+// about code 12 in sRGB: below it JPEG noise and the curve's toe swamp the level. common practice, no published source
+const MIN_LEVEL = Math.log2(0.0037 / 0.18);
+const MIN_BACKGROUND_CELLS = 12;
+// least lift that marks a cell as lit by the flash
+const MIN_CELL_LIFT = 0.3;
+// a cell blown by the flash: mostly clipped in the lit frame, nearly clean in the reference
+const BLOWN_LIT = 0.25;
+const BLOWN_REF = 0.05;
+// how much slope uncertainty remains when the slope could not be learned (a camera curve against sRGB)
+const UNLEARNED_SLOPE_DOUBT = 0.3;
+
+type Channel = 'r' | 'g' | 'b' | 'y';
+
+function level(cells: Cells, i: number, channel: Channel): number {
+	const v = channel === 'y' ? 0.2126 * cells.r[i] + 0.7152 * cells.g[i] + 0.0722 * cells.b[i] : cells[channel][i];
+	return v > 0 ? Math.log2(v / 0.18) : NaN;
+}
+
+function usable(cells: Cells, i: number): boolean {
+	return cells.clipped[i] <= MAX_CLIPPED && cells.crushed[i] <= MAX_CRUSHED && Number.isFinite(cells.r[i]);
+}
+
+interface ChannelMeasure {
+	calibration: Calibration;
+	cellLift: (i: number) => number;
+	backgroundLifts: number[];
+	pairs: LevelPair[];
+}
+
+// Each channel predicts its own ambient-only level (that takes in a white balance changed between frames), but the
+// tone curve's slope is the luminance's: a channel's drop mixes the curve with the white balance and cannot part them.
+function measureChannel(ref: Cells, lit: Cells, background: number[], d: number | null, channel: Channel, slopeFrom?: Calibration): ChannelMeasure | null {
+	const pairs: LevelPair[] = [];
+	for (const i of background) {
+		const a = level(ref, i, channel);
+		const b = level(lit, i, channel);
+		if (a >= MIN_LEVEL && b >= MIN_LEVEL) pairs.push({ ref: a, lit: b });
+	}
+	if (pairs.length < MIN_BACKGROUND_CELLS) return null;
+	const calibration = calibrate(pairs, d);
+	const stops = (slopeFrom ?? calibration).sceneStops;
+	const cellLift = (i: number) => {
+		const a = level(ref, i, channel);
+		const b = level(lit, i, channel);
+		if (!(a >= MIN_LEVEL && b >= MIN_LEVEL)) return NaN;
+		return stops(calibration.predictLit(a), b);
+	};
+	return { calibration, cellLift, backgroundLifts: pairs.map((p) => stops(calibration.predictLit(p.ref), p.lit)), pairs };
+}
+
+/** mired(x) − mired(y) of the light on the subject against the ambient, from per-channel lifts; null off the locus. */
+function warmth(lifts: [number, number, number], toMired: (rgb: [number, number, number]) => number | null): number | null {
+	const gains = lifts.map((l) => 2 ** l) as [number, number, number];
+	const mixed = toMired(gains);
+	const ambient = toMired([1, 1, 1]);
+	return mixed === null || ambient === null ? null : mixed - ambient;
+}
+
+/**
+ * Compares two measured frames of the same scene. `d` is the Exif settings difference (lit darker positive).
+ * `toMired` turns linear sRGB into the mired of its nearest Planckian point (null beyond the locus).
+ */
+export function measurePair(
+	refPixels: PixelReport,
+	litPixels: PixelReport,
+	box: Box,
+	d: number | null,
+	toMired: (rgb: [number, number, number]) => number | null
+): PairResult {
+	const ref = decodeGrid(refPixels.grid);
+	const lit = decodeGrid(litPixels.grid);
+	if (!ref || !lit) return { ok: false, reason: 'one of the frames was measured before cell levels were kept, so the two cannot be compared' };
+	if (ref.cols !== lit.cols || ref.rows !== lit.rows) {
+		return { ok: false, reason: 'the two frames have different shapes (one is turned or cropped), so they cannot be compared point by point' };
+	}
+	const places = cellPlaces(lit.cols, lit.rows, box);
+	const backgroundAll = places.flatMap((p, i) => (p === 'background' ? [i] : []));
+	const background = backgroundAll.filter((i) => usable(ref, i) && usable(lit, i));
+	const backgroundUsable = backgroundAll.length ? background.length / backgroundAll.length : 0;
+	const luma = measureChannel(ref, lit, background, d, 'y');
+	if (!luma) {
+		const clipped = Math.round(100 * refPixels.background.clippedShare);
+		return {
+			ok: false,
+			reason: `too little of the background can be compared (${Math.round(100 * backgroundUsable)} % of it; ${clipped} % of the reference background is clipped)`
+		};
+	}
+	const drops = luma.pairs.map((p) => p.ref - p.lit);
+	const noise = robustSpread(luma.backgroundLifts);
+	const slopeDoubt = luma.calibration.slopeLearned ? 0 : UNLEARNED_SLOPE_DOUBT;
+
+	const boxCells = places.flatMap((p, i) => (p === 'subject' ? [i] : []));
+	const lifts = boxCells.map((i) => (usable(ref, i) && usable(lit, i) ? luma.cellLift(i) : NaN));
+	const measured = boxCells.map((i, k) => ({ i, lift: lifts[k] })).filter((c) => Number.isFinite(c.lift));
+	const threshold = Math.max(MIN_CELL_LIFT, 3 * (Number.isFinite(noise) ? noise : 0));
+	const lit_ = measured.filter((c) => c.lift >= threshold);
+	const blown = boxCells.filter((i) => lit.clipped[i] >= BLOWN_LIT && ref.clipped[i] <= BLOWN_REF).length;
+	// enough flash-lit cells: the subject is where the flash landed; otherwise there is no lift to find
+	const enough = lit_.length >= Math.max(2, 0.05 * measured.length);
+	const subject = enough ? lit_ : [];
+	const lift = measured.length === 0 ? null : enough ? median(subject.map((c) => c.lift)) : Math.max(0, quantile(measured.map((c) => c.lift), 0.75));
+	const liftUncertainty = 0.08 + 2 * (Number.isFinite(noise) ? noise : 0.2) / Math.sqrt(Math.max(1, subject.length || measured.length)) + slopeDoubt * Math.abs(lift ?? 0);
+
+	let channelLift: PairMeasure['channelLift'] = null;
+	let warmerMired: number | null = null;
+	if (subject.length >= 2) {
+		const channels = (['r', 'g', 'b'] as const).map((c) => measureChannel(ref, lit, background, d, c, luma.calibration));
+		if (channels.every((c) => c !== null)) {
+			const perChannel = channels.map((c) => median(subject.map((s) => c!.cellLift(s.i)).filter(Number.isFinite)));
+			if (perChannel.every(Number.isFinite)) {
+				channelLift = perChannel as [number, number, number];
+				warmerMired = warmth(channelLift, toMired);
+			}
+		}
+	}
+
+	return {
+		ok: true,
+		pair: {
+			expectedDrop: d,
+			backgroundDrop: median(drops),
+			backgroundSpread: robustSpread(drops),
+			backgroundCells: luma.pairs.length,
+			backgroundUsable,
+			slopeLearned: luma.calibration.slopeLearned,
+			lift,
+			liftUncertainty,
+			subjectCells: subject.length,
+			boxCells: boxCells.length,
+			blownShare: subject.length + blown > 0 ? blown / (subject.length + blown) : 0,
+			warmerMired,
+			channelLift
+		}
+	};
+}
