@@ -54,7 +54,7 @@ describe('Assignment card data', () => {
 				frames: ['reference', 'lit'],
 				criteria: [
 					expect.stringMatching(/^Set the ambient exposure 1½ ± ½ stops under your ambient reference frame/),
-					'Light the subject so they stand at least 1 stop brighter than the background.',
+					expect.stringContaining('Light the subject so the flash lifts them at least 1 stop above the ambient alone'),
 					expect.stringContaining('The background must darken between the reference and the lit frame'),
 					expect.stringContaining('Light the subject with flash')
 				],

@@ -28,7 +28,9 @@ export function gradeFlashEvidence(c: FlashEvidence, ctx: GradeContext): Criteri
 	}
 	const u = got.pair.liftUncertainty;
 	const evidence = { lift, flashShare: shareFromLift(lift), uncertainty: u, blownPercent: 100 * got.pair.blownShare };
-	const verdict = judge(lift, u, { atLeast: c.minLiftStops });
+	const judged = judge(lift, u, { atLeast: c.minLiftStops });
+	// most of the subject blown out: the lift is a lower bound, which can prove a pass but never a fail
+	const verdict = judged === 'fail' && got.pair.liftIsLowerBound ? 'unknown' : judged;
 	const measuredWords = `Measured from the pixels: the subject in ${frameWords(litName)} is ${formatStops(lift)} brighter than the ambient alone would make it (against ${frameWords(refName as string)}).`;
 	if (verdict === 'pass') return { ...base, verdict, measured: lift, missing: [], evidence, message: `${measuredWords} That is your flash at work (a reflector could do the same). ${bit}` };
 	if (verdict === 'unknown') {

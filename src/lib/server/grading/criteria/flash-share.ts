@@ -29,7 +29,8 @@ export function gradeFlashShare(c: FlashShare, ctx: GradeContext): CriterionResu
 	// judged on the lift, where the measuring uncertainty is even: a ratio r gives a lift of mix(0, r)
 	const lo = mix({ ambientStops: 0, flashStops: target - c.tolerance });
 	const hi = mix({ ambientStops: 0, flashStops: target + c.tolerance });
-	const verdict = judge(lift, got.pair.liftUncertainty, { atLeast: lo, atMost: hi });
+	// most of the subject blown out: the lift is only a lower bound, so no verdict either way
+	const verdict = got.pair.liftIsLowerBound ? 'unknown' : judge(lift, got.pair.liftUncertainty, { atLeast: lo, atMost: hi });
 	const ratio = ratioFromLift(lift);
 	const share = shareFromLift(lift);
 	const measured = Number.isFinite(ratio) ? ratio : null;

@@ -26,7 +26,9 @@ export function gradeSubjectLift(c: SubjectLift, ctx: GradeContext): CriterionRe
 		predictedLift: predictedLift(ctx, got.ref, lit, lift) ?? undefined,
 		blownPercent: 100 * pair.blownShare
 	};
-	const verdict = judge(lift, pair.liftUncertainty, { atLeast: c.minStops });
+	const judged = judge(lift, pair.liftUncertainty, { atLeast: c.minStops });
+	// most of the subject blown out: the lift is a lower bound, which can prove a pass but never a fail
+	const verdict = judged === 'fail' && pair.liftIsLowerBound ? 'unknown' : judged;
 	const found = `The flash lifted your subject ${formatStops(lift)} above the ambient light alone (measured against the same subject in the reference frame, so skin and clothing tones do not count); the assignment asks for at least ${formatStopAmount(c.minStops)}.`;
 	const note = blownNote(pair.blownShare);
 	if (verdict === 'pass') return { ...base, verdict, measured: lift, missing: [], evidence, message: `${found} They stand out from the darker world around them.${note}` };

@@ -8,7 +8,8 @@
 // Limits: the frames must show the same scene from the same place (a tripod or a steady hand: cells are ~2.5 % of
 // the frame); subject movement between frames blurs the measure; the flash must not light the background; white
 // balance must be the same in both frames; clipped and crushed cells cannot be measured and are left out and counted.
-import { cellPlaces, decodeGrid, type Box, type Cells, type PixelReport } from '../../analysis/index';
+import { srgbDecode } from '../../../exposure/index';
+import { CLIP_CODE, cellPlaces, decodeGrid, type Box, type Cells, type PixelReport } from '../../analysis/index';
 import { calibrate, type Calibration, type LevelPair } from './calibration';
 import { median, quantile, robustSpread } from './stats';
 
@@ -28,6 +29,8 @@ export interface PairMeasure {
 	lift: number | null;
 	/** ± stops this lift may be off by: noise of the background cells plus the tone curve's uncertainty. */
 	liftUncertainty: number;
+	/** true when most of the flash-lit subject is blown out: the lift is then only a lower bound. */
+	liftIsLowerBound: boolean;
 	/** Cells judged to be the flash-lit subject (and of the box, usable). */
 	subjectCells: number;
 	boxCells: number;
@@ -47,6 +50,8 @@ const MAX_CRUSHED = 0.02;
 // about code 12 in sRGB: below it JPEG noise and the curve's toe swamp the level. common practice, no published source
 const MIN_LEVEL = Math.log2(0.0037 / 0.18);
 const MIN_BACKGROUND_CELLS = 12;
+// the level of code 250 in every channel, where clipping starts (CLIP_CODE): IEC 61966-2-1 decode, stops over 18 % grey
+const CLIP_LEVEL = Math.log2(srgbDecode(CLIP_CODE / 255) / 0.18);
 // least lift that marks a cell as lit by the flash
 const MIN_CELL_LIFT = 0.3;
 // a cell blown by the flash: mostly clipped in the lit frame, nearly clean in the reference
@@ -140,11 +145,25 @@ export function measurePair(
 	const measured = boxCells.map((i, k) => ({ i, lift: lifts[k] })).filter((c) => Number.isFinite(c.lift));
 	const threshold = Math.max(MIN_CELL_LIFT, 3 * (Number.isFinite(noise) ? noise : 0));
 	const lit_ = measured.filter((c) => c.lift >= threshold);
-	const blown = boxCells.filter((i) => lit.clipped[i] >= BLOWN_LIT && ref.clipped[i] <= BLOWN_REF).length;
+	// cells the flash blew out: their lift is at least what it takes to reach the clipping level from the prediction
+	const blownCells = boxCells.filter((i) => lit.clipped[i] >= BLOWN_LIT && ref.clipped[i] <= BLOWN_REF && Number.isFinite(ref.r[i]));
+	const blownLifts = blownCells
+		.map((i) => {
+			const a = level(ref, i, 'y');
+			return a >= MIN_LEVEL ? luma.calibration.sceneStops(luma.calibration.predictLit(a), CLIP_LEVEL) : NaN;
+		})
+		.filter((l) => Number.isFinite(l) && l >= threshold);
+	const blown = blownCells.length;
 	// enough flash-lit cells: the subject is where the flash landed; otherwise there is no lift to find
-	const enough = lit_.length >= Math.max(2, 0.05 * measured.length);
+	const enough = lit_.length + blownLifts.length >= Math.max(2, 0.05 * (measured.length + blownLifts.length));
 	const subject = enough ? lit_ : [];
-	const lift = measured.length === 0 ? null : enough ? median(subject.map((c) => c.lift)) : Math.max(0, quantile(measured.map((c) => c.lift), 0.75));
+	const liftIsLowerBound = enough && blownLifts.length >= subject.length;
+	const lift =
+		measured.length + blownLifts.length === 0
+			? null
+			: enough
+				? median([...subject.map((c) => c.lift), ...blownLifts])
+				: Math.max(0, quantile(measured.map((c) => c.lift), 0.75));
 	const liftUncertainty = 0.08 + 2 * (Number.isFinite(noise) ? noise : 0.2) / Math.sqrt(Math.max(1, subject.length || measured.length)) + slopeDoubt * Math.abs(lift ?? 0);
 
 	let channelLift: PairMeasure['channelLift'] = null;
@@ -171,6 +190,7 @@ export function measurePair(
 			slopeLearned: luma.calibration.slopeLearned,
 			lift,
 			liftUncertainty,
+			liftIsLowerBound,
 			subjectCells: subject.length,
 			boxCells: boxCells.length,
 			blownShare: subject.length + blown > 0 ? blown / (subject.length + blown) : 0,
