@@ -105,8 +105,16 @@ test('upload → verdict → mentor pin and override → critique and e-mail', a
 	const litPhoto = mentor.page.getByRole('region', { name: 'The lit frame' }).getByTestId('photo-frame');
 	await litPhoto.click({ position: { x: 60, y: 40 } });
 	await mentor.page.getByTestId('pin-text-lit').fill('The key sits too close to the lens axis here.');
-	await mentor.page.getByTestId('pin-save-lit').click();
+	// a double click makes one pin: the button waits for the first, the server keeps one per key
+	await mentor.page.getByTestId('pin-save-lit').dblclick();
+	await expect(mentor.page.getByRole('status').filter({ hasText: 'Pin 1 added.' })).toBeVisible();
 	await expect(mentor.page.getByRole('region', { name: 'The lit frame' }).getByTestId('pin-1')).toBeVisible();
+	await expect(mentor.page.getByTestId('pin-text-lit')).toHaveValue('');
+	await expect(mentor.page.getByTestId('pin-2')).toHaveCount(0);
+	// the rubric follows the assignment: no colour criterion, no colour item
+	await expect(mentor.page.getByTestId('rubric')).toContainText('Shape and direction of the flash');
+	await expect(mentor.page.getByTestId('rubric')).not.toContainText('Colour of the light');
+	await mentor.page.getByTestId('rubric').getByRole('combobox', { name: /Ambient dimmed as planned/ }).selectOption('4');
 	await mentor.page.getByTestId('critique-input').fill('Good ambient control. Move the light further round: 45 degrees or more from the axis.');
 	await mentor.page.getByTestId('verdict-select').selectOption('fail');
 	await mentor.page.getByTestId('override-reason').fill('The light is only about 20 degrees off the camera axis.');
@@ -117,6 +125,9 @@ test('upload → verdict → mentor pin and override → critique and e-mail', a
 	// the learner reads the critique
 	await page.goto(attemptUrl);
 	await expect(page.getByTestId('critique-text')).toHaveText('Good ambient control. Move the light further round: 45 degrees or more from the axis.');
+	await expect(page.getByTestId('critique-heading')).toHaveText('Critique from Tess Lindqvist (demo)');
+	await expect(page.getByTestId('pin-notes').getByRole('listitem')).toHaveCount(1);
+	await expect(page.getByTestId('critique')).toContainText('4/4 Strong');
 	await expect(page.getByTestId('pin-notes')).toContainText('The key sits too close to the lens axis here.');
 	await expect(page.getByTestId('override-note')).toContainText('The light is only about 20 degrees off the camera axis.');
 	await expect(page.getByTestId('pin-1')).toBeVisible();

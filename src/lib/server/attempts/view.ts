@@ -2,7 +2,7 @@
 import { asc, desc, eq } from 'drizzle-orm';
 import { db } from '../db/index';
 import { attemptFrames, attempts, critiques, pins, users, verdictOverrides, type AttemptStatus, type AttemptVerdict } from '../db/schema';
-import { describeCriterion, validateSpec } from '../grading/index';
+import { describeCriterion, rubricFor, rubricItem, validateSpec, type RubricItem } from '../grading/index';
 import { canSeeAttempt, type Viewer } from './access';
 import { findAssignmentById } from './assignment';
 import { frameFileHref } from './files';
@@ -63,6 +63,8 @@ export interface AttemptView {
 	criteria: CriterionView[];
 	critique: { text: string; rubric: Record<string, number>; mentor: string | null; updatedAt: Date } | null;
 	pins: PinView[];
+	/** what the mentor scores: the Assignment's rubric, plus any item scored under an earlier one */
+	rubric: RubricItem[];
 	overrides: { before: AttemptVerdict | null; after: AttemptVerdict; reason: string; mentor: string; at: Date }[];
 }
 
@@ -128,6 +130,11 @@ export async function loadAttemptView(viewer: Viewer, attemptId: string): Promis
 		db.select().from(verdictOverrides).where(eq(verdictOverrides.attemptId, a.id)).orderBy(desc(verdictOverrides.createdAt))
 	]);
 	const critique = critiqueRows[0];
+	const rubric = rubricFor(a.spec as Parameters<typeof rubricFor>[0]);
+	for (const id of Object.keys(critique?.critique.rubric ?? {})) {
+		const item = rubricItem(id);
+		if (item && !rubric.some((r) => r.id === id)) rubric.push(item);
+	}
 	return {
 		id: a.id,
 		status: a.status,
@@ -148,6 +155,7 @@ export async function loadAttemptView(viewer: Viewer, attemptId: string): Promis
 		criteria: criteriaView(a.spec, a.result as StoredResult | null),
 		critique: critique ? { text: critique.critique.text, rubric: critique.critique.rubric, mentor: critique.mentor, updatedAt: critique.critique.updatedAt } : null,
 		pins: pinRows.map((p) => ({ id: p.id, number: p.number, frameName: p.frameName, x: p.x, y: p.y, text: p.text })),
+		rubric,
 		// the learner sees why their verdict changed only with the review itself
 		overrides: showReview ? overrideRows.map((o) => ({ before: o.verdictBefore, after: o.verdictAfter, reason: o.reason, mentor: mine ? 'your mentor' : o.mentorEmail, at: o.createdAt })) : []
 	};

@@ -327,9 +327,11 @@ export const pins = pgTable(
 		y: real('y').notNull(),
 		text: text('text').notNull(),
 		mentorId: text('mentor_id').references(() => users.id, { onDelete: 'set null' }),
+		/** sent by the pin form; a double-clicked "Pin it" carries the same key and finds the same pin */
+		clientKey: text('client_key'),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
-	(t) => [uniqueIndex('pins_number_idx').on(t.attemptId, t.number)]
+	(t) => [uniqueIndex('pins_number_idx').on(t.attemptId, t.number), uniqueIndex('pins_client_key_idx').on(t.attemptId, t.clientKey)]
 );
 export type Pin = typeof pins.$inferSelect;
 
@@ -368,6 +370,8 @@ export const enrolments = pgTable(
 		status: text('status', { enum: ['active', 'revoked'] }).notNull().default('active'),
 		source: text('source', { enum: ['payment', 'admin', 'free'] }).notNull(),
 		paymentId: integer('payment_id'),
+		/** the coupon that made a course free (paid enrolments keep theirs on the payment) */
+		couponCode: text('coupon_code'),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 		revokedAt: timestamp('revoked_at', { withTimezone: true })
 	},
@@ -417,7 +421,50 @@ export const coupons = pgTable('coupons', {
 	code: text('code').primaryKey(),
 	percentOff: integer('percent_off').notNull(),
 	active: boolean('active').notNull().default(true),
+	/** null: no limit; counted over paid payments and free enrolments that used the code */
+	maxUses: integer('max_uses'),
+	/** null: never; from this moment the code is refused */
+	expiresAt: timestamp('expires_at', { withTimezone: true }),
+	note: text('note').notNull().default(''),
 	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 });
 export type Coupon = typeof coupons.$inferSelect;
 // ---- end enrolment ----
+
+// ---- audit (issue 13): every consequential action, who, when, what and why ----
+
+export const auditActions = [
+	'role.change',
+	'payment.refund',
+	'enrolment.grant',
+	'enrolment.revoke',
+	'enrolment.restore',
+	'verdict.override',
+	'lesson.publish',
+	'lesson.restore',
+	'coupon.create',
+	'coupon.change'
+] as const;
+export type AuditAction = (typeof auditActions)[number];
+
+/** One row per consequential action; the actor's e-mail is copied so the line survives a deleted account. */
+export const auditLog = pgTable(
+	'audit_log',
+	{
+		id: serial('id').primaryKey(),
+		at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+		actorUserId: text('actor_user_id').references(() => users.id, { onDelete: 'set null' }),
+		actorEmail: text('actor_email').notNull(),
+		action: text('action', { enum: auditActions }).notNull(),
+		/** what it was done to, in words: "lena@example.com in Daylight Flash for Action" */
+		subject: text('subject').notNull(),
+		/** what changed: "refunded 119.20 USD", "+mentor" */
+		detail: text('detail').notNull().default(''),
+		reason: text('reason').notNull().default(''),
+		/** an in-app link to the thing, when there is a page for it */
+		href: text('href')
+	},
+	(t) => [index('audit_log_at_idx').on(t.at), index('audit_log_action_idx').on(t.action, t.at)]
+);
+export type AuditEntry = typeof auditLog.$inferSelect;
+// ---- end audit ----

@@ -19,3 +19,4 @@ export { formatSpecErrors, SpecValidationError, type SpecError } from './spec-er
 export type { CriterionResult, CriterionVerdict, Comparison, Evidence, FlashUsed, Unit } from './result';
 export { CRITERION_HELP } from './help';
 export { DEFAULT_SYNC_SPEED } from './spec';
+export { RUBRIC_ITEMS, DEFAULT_RUBRIC_BY_KIND, rubricFor, rubricItem, cleanRubric, type RubricItem, type RubricId } from './rubric';

@@ -1,6 +1,7 @@
 // The Assignment spec: its zod schema, defaults, and validation errors located by path and written for authors.
 // Pure zod, no server imports: the browser editor can use the same schema.
 import { z } from 'zod';
+import { RUBRIC_IDS } from './rubric';
 import { toSpecErrors, type SpecError } from './spec-errors';
 
 const frameName = z
@@ -133,9 +134,12 @@ export type Criterion = z.output<typeof criterionSchema>;
 export type CriterionInput = z.input<typeof criterionSchema>;
 export type CriterionKind = Criterion['kind'];
 
-function checkReferences(spec: { frames: string[]; sceneEv?: number; syncSpeed?: number; criteria: Criterion[] }, ctx: z.RefinementCtx): void {
+function checkReferences(spec: { frames: string[]; sceneEv?: number; syncSpeed?: number; criteria: Criterion[]; rubric?: string[] }, ctx: z.RefinementCtx): void {
 	const known = new Set(spec.frames);
 	const seen = new Set<string>();
+	spec.rubric?.forEach((id, i) => {
+		if (spec.rubric!.indexOf(id) !== i) ctx.addIssue({ code: 'custom', path: ['rubric', i], message: `lists "${id}" twice` });
+	});
 	spec.frames.forEach((name, i) => {
 		if (seen.has(name)) ctx.addIssue({ code: 'custom', path: ['frames', i], message: `lists "${name}" twice` });
 		seen.add(name);
@@ -200,7 +204,9 @@ export const assignmentSpecSchema = z
 		sceneEv: stops(25).optional(),
 		/** The camera's flash sync speed in seconds, for sync and for advice (default 1/250 s). */
 		syncSpeed: seconds.optional(),
-		criteria: z.array(criterionSchema).min(1).max(40)
+		criteria: z.array(criterionSchema).min(1).max(40),
+		/** What the mentor scores (rubric item ids); without it, defaults follow the kinds of criteria. */
+		rubric: z.array(z.enum(RUBRIC_IDS)).min(1).max(RUBRIC_IDS.length).optional()
 	})
 	.strict()
 	.superRefine(checkReferences);

@@ -2,7 +2,8 @@
 import { and, eq, sql } from 'drizzle-orm';
 import { db } from '../db/index';
 import { assignments, attemptFrames, attempts, critiques, pins, users, verdictOverrides, verdicts, type AttemptVerdict } from '../db/schema';
-import { cleanRubric } from '../../attempts/rubric';
+import { cleanRubric, rubricFor } from '../grading/rubric';
+import { recordAudit } from '../audit';
 import { notifyAttemptSql } from '../attempts/events';
 
 export interface Mentor {
@@ -10,7 +11,7 @@ export interface Mentor {
 	email: string;
 }
 
-export type Saved<T = object> = ({ ok: true } & T) | { ok: false; status: 400 | 404 | 409; message: string };
+export type Saved<T = object> = ({ ok: true } & T) | { ok: false; status: 400 | 404 | 409; message: string; field?: 'text' | 'reason' };
 
 const MAX_PIN_TEXT = 1000;
 const MAX_CRITIQUE = 10_000;
@@ -28,10 +29,19 @@ export interface PinInput {
 	x: number;
 	y: number;
 	text: string;
+	/** made by the form once per pin: a second submit of the same pin finds the first */
+	clientKey: string;
 }
 
-/** Adds the next numbered pin; x and y are fractions 0–1 of the frame as shown. */
-export async function addPin(mentor: Mentor, attemptId: string, input: PinInput): Promise<Saved<{ number: number }>> {
+async function pinByKey(attemptId: string, clientKey: string) {
+	return db.query.pins.findFirst({ where: and(eq(pins.attemptId, attemptId), eq(pins.clientKey, clientKey)), columns: { number: true } });
+}
+
+/**
+ * Adds the next numbered pin; x and y are fractions 0–1 of the frame as shown. The same client key twice
+ * (a double click, a resent form) gives the pin made the first time: the unique (attempt, key) index decides.
+ */
+export async function addPin(mentor: Mentor, attemptId: string, input: PinInput): Promise<Saved<{ number: number; repeated: boolean }>> {
 	const text = input.text.trim();
 	if (!text) return { ok: false, status: 400, message: 'Write what the pin should say.' };
 	if (text.length > MAX_PIN_TEXT) return { ok: false, status: 400, message: `Keep a pin under ${MAX_PIN_TEXT} characters; put the rest in the critique.` };
@@ -40,6 +50,8 @@ export async function addPin(mentor: Mentor, attemptId: string, input: PinInput)
 	if (!open.ok) return open;
 	const frame = await db.query.attemptFrames.findFirst({ where: and(eq(attemptFrames.attemptId, attemptId), eq(attemptFrames.name, input.frameName)), columns: { id: true } });
 	if (!frame) return { ok: false, status: 400, message: 'That frame is not part of this attempt.' };
+	const earlier = await pinByKey(attemptId, input.clientKey);
+	if (earlier) return { ok: true, number: earlier.number, repeated: true };
 	// two mentors pinning at once: the unique (attempt, number) index makes one of them try the next number
 	for (let tries = 0; tries < 3; tries++) {
 		try {
@@ -52,10 +64,15 @@ export async function addPin(mentor: Mentor, attemptId: string, input: PinInput)
 					x: input.x,
 					y: input.y,
 					text,
-					mentorId: mentor.id
+					mentorId: mentor.id,
+					clientKey: input.clientKey
 				})
+				.onConflictDoNothing({ target: [pins.attemptId, pins.clientKey] })
 				.returning({ number: pins.number });
-			return { ok: true, number: row.number };
+			if (row) return { ok: true, number: row.number, repeated: false };
+			// the same key was stored a moment ago by the other click
+			const same = await pinByKey(attemptId, input.clientKey);
+			if (same) return { ok: true, number: same.number, repeated: true };
 		} catch (error) {
 			if ((error as { code?: string }).code !== '23505' && (error as { cause?: { code?: string } }).cause?.code !== '23505') throw error;
 		}
@@ -91,14 +108,13 @@ export interface ReviewSaved {
 export async function saveReview(mentor: Mentor, attemptId: string, input: ReviewInput): Promise<Saved<ReviewSaved>> {
 	const text = input.text.trim();
 	const reason = input.reason.trim();
-	if (!text) return { ok: false, status: 400, message: 'Write the critique before sending it.' };
+	if (!text) return { ok: false, status: 400, field: 'text', message: 'Write the critique before sending it.' };
 	if (text.length > MAX_CRITIQUE) return { ok: false, status: 400, message: `The critique is over ${MAX_CRITIQUE} characters; please shorten it.` };
 	if (input.verdict !== 'keep' && !(verdicts as readonly string[]).includes(input.verdict)) return { ok: false, status: 400, message: 'Choose a verdict from the list.' };
-	const rubric = cleanRubric(input.rubric);
 
 	return db.transaction(async (tx) => {
 		const [row] = await tx
-			.select({ verdict: attempts.verdict, status: attempts.status, reviewState: attempts.reviewState, email: users.email, name: users.name, assignment: assignments.title })
+			.select({ verdict: attempts.verdict, status: attempts.status, reviewState: attempts.reviewState, spec: attempts.spec, email: users.email, name: users.name, assignment: assignments.title })
 			.from(attempts)
 			.innerJoin(users, eq(attempts.userId, users.id))
 			.innerJoin(assignments, eq(attempts.assignmentId, assignments.id))
@@ -107,8 +123,10 @@ export async function saveReview(mentor: Mentor, attemptId: string, input: Revie
 		if (!row) return { ok: false, status: 404, message: 'There is no such attempt.' } as const;
 		if (!(REVIEWABLE as readonly string[]).includes(row.status)) return { ok: false, status: 409, message: 'This attempt is still being graded. Try again in a moment.' } as const;
 		const changed = input.verdict !== 'keep' && input.verdict !== row.verdict;
-		if (changed && reason.length < 5) return { ok: false, status: 400, message: 'Say why you change the verdict: the learner reads it, and it is kept on record.' } as const;
+		if (changed && reason.length < 5) return { ok: false, status: 400, field: 'reason', message: 'Say why you change the verdict: the learner reads it, and it is kept on record.' } as const;
 
+		// scored against the rubric of the spec this attempt was graded by
+		const rubric = cleanRubric(input.rubric, rubricFor(row.spec as Parameters<typeof rubricFor>[0]));
 		const now = new Date();
 		await tx
 			.insert(critiques)
@@ -117,6 +135,13 @@ export async function saveReview(mentor: Mentor, attemptId: string, input: Revie
 		const verdict = changed ? (input.verdict as AttemptVerdict) : row.verdict;
 		if (changed) {
 			await tx.insert(verdictOverrides).values({ attemptId, mentorId: mentor.id, mentorEmail: mentor.email, verdictBefore: row.verdict, verdictAfter: verdict!, reason });
+			await recordAudit(tx, mentor, {
+				action: 'verdict.override',
+				subject: `${row.email}: ${row.assignment}`,
+				detail: `${row.verdict ?? 'none'} → ${verdict}`,
+				reason,
+				href: `/mentor/attempts/${attemptId}`
+			});
 		}
 		await tx.update(attempts).set({ verdict, reviewState: 'reviewed', reviewedAt: now }).where(eq(attempts.id, attemptId));
 		await tx.execute(notifyAttemptSql(attemptId));
