@@ -13,7 +13,8 @@ export const WIDGET_ATTRIBUTES = {
 	FreezeMeter: ['speed', 'distance', 'focal', 'sensor', 'pixels', 'shutter'],
 	SafetyNote: ['topics'],
 	Quiz: ['id', 'question', 'answer', 'tolerance', 'unit', 'choices'],
-	AssignmentCard: ['slug']
+	AssignmentCard: ['slug'],
+	Figure: ['name', 'alt', 'caption']
 } as const satisfies Record<string, readonly string[]>;
 
 export type WidgetName = keyof typeof WIDGET_ATTRIBUTES;

@@ -35,3 +35,31 @@ test.describe('on a phone', () => {
 		await page.screenshot({ path: 'test-results/screenshots/landing-phone.png', fullPage: true });
 	});
 });
+
+test('a lesson shows its rendered figure with a caption that says it is not a photograph', async ({ page }) => {
+	await page.goto('/courses/daylight-flash-for-action/what-a-stop-is');
+	const figure = page.getByTestId('lesson-figure').first();
+	await expect(figure).toHaveAttribute('data-illustration', 'stop-ladder-rower');
+	await expectImagesLoaded(figure, 1);
+	await expect(figure.locator('figcaption')).toContainText('not photographed');
+	await expect(figure.getByRole('listitem')).toHaveCount(4);
+	await figure.screenshot({ path: 'test-results/screenshots/lesson-figure.png' });
+});
+
+test('the course page links to its instructor, whose page says the profile is invented', async ({ page }) => {
+	await page.goto('/courses/daylight-flash-for-action');
+	await page.getByTestId('instructor-link').click();
+	await expect(page).toHaveURL(/\/instructors\/jun-halvorsen$/);
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Jun Halvorsen');
+	await expect(page.getByTestId('invented-note')).toContainText('invented');
+	await expectImagesLoaded(page.getByTestId('instructor-portrait'), 1);
+	await expect(page.getByTestId('instructor-portrait')).toContainText('Drawn by Stopwise');
+	await expect(page.getByRole('link', { name: 'Daylight Flash for Action' })).toBeVisible();
+	await page.screenshot({ path: 'test-results/screenshots/instructor.png', fullPage: true });
+});
+
+test('an unknown instructor is a 404 page', async ({ page }) => {
+	const response = await page.goto('/instructors/nobody-here');
+	expect(response?.status()).toBe(404);
+	await expect(page.getByText('There is no such instructor.')).toBeVisible();
+});

@@ -193,6 +193,7 @@ export function renderScene(scene: Scene, camera: Camera, flashes: Flash[], opti
 	const data = new Float32Array(width * height * 3);
 	const acc = [0, 0, 0];
 	const shutterSpan = (athlete.speed ?? 0) * camera.shutter;
+	const halfSpan = Math.abs(shutterSpan) / 2;
 	for (let py = 0; py < height; py++) {
 		for (let px = 0; px < width; px++) {
 			acc[0] = acc[1] = acc[2] = 0;
@@ -200,11 +201,16 @@ export function renderScene(scene: Scene, camera: Camera, flashes: Flash[], opti
 				for (let sx = 0; sx < ss; sx++) {
 					const dx = (px + (sx + 0.5) / ss - cx) / f + pan;
 					const dy = (cy - (py + (sy + 0.5) / ss)) / f;
-					// daylight integrates over the whole shutter time; the flash fires once, mid-exposure
-					for (let k = 0; k < times; k++) {
-						const shift = times === 1 ? 0 : shutterSpan * ((k + 0.5) / times - 0.5);
+					// daylight integrates over the whole shutter time; the flash fires once, mid-exposure. Rays that
+					// miss the athlete's swept box see a still world: one moment is enough there.
+					const lx = dx * athlete.z - athlete.x;
+					const ly = camH + dy * athlete.z - ay;
+					const swept = lx >= box.x0 - halfSpan && lx <= box.x1 + halfSpan && ly >= box.y0 && ly <= box.y1;
+					const n = swept ? times : 1;
+					for (let k = 0; k < n; k++) {
+						const shift = n === 1 ? 0 : shutterSpan * ((k + 0.5) / n - 0.5);
 						const hit = trace(dx, dy, shift);
-						const w = 1 / times;
+						const w = 1 / n;
 						const part = [0, 0, 0];
 						shade(hit, ambient > 0, false, part);
 						for (let c = 0; c < 3; c++) acc[c] += part[c] * w;
@@ -216,8 +222,8 @@ export function renderScene(scene: Scene, camera: Camera, flashes: Flash[], opti
 					}
 				}
 			}
-			const n = ss * ss;
-			const r = acc[0] / n, g = acc[1] / n, b = acc[2] / n;
+			const samples = ss * ss;
+			const r = acc[0] / samples, g = acc[1] / samples, b = acc[2] / samples;
 			const i = (py * width + px) * 3;
 			data[i] = wb[0][0] * r + wb[0][1] * g + wb[0][2] * b;
 			data[i + 1] = wb[1][0] * r + wb[1][1] * g + wb[1][2] * b;

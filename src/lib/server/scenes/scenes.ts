@@ -29,8 +29,8 @@ export function trailRunner(kit: 'light' | 'dark' = 'light'): Scene {
 export function harbourRower(): Scene {
 	return {
 		setting: 'water', seed: 11, sceneEv: ev100(meters.hazySun), sun: [0.8, 0.5, 0.3], skyShare: 0.35,
-		athlete: { kind: 'rower', x: -0.2, z: 6, palette: palette({ skin: 'fair', kit: 'dark', accent: red, hair: [0.25, 0.12, 0.05] }) },
-		view: { height: 1.2, focal35: 35, horizon: 0.55 }
+		athlete: { kind: 'rower', x: -0.2, z: 5, palette: palette({ skin: 'fair', kit: 'dark', accent: red, hair: [0.25, 0.12, 0.05] }) },
+		view: { height: 1.1, focal35: 50, horizon: 0.4 }
 	};
 }
 
@@ -39,16 +39,16 @@ export function wallClimber(): Scene {
 	return {
 		setting: 'wall', seed: 5, sceneEv: ev100(meters.brightSun), sun: [0.3, 0.8, 0.6], skyShare: 0.3,
 		athlete: { kind: 'climber', x: 0.1, y: 1.9, z: 4.7, palette: palette({ skin: 'deep', kit: 'light', accent: yellow }) },
-		view: { height: 1.4, focal35: 24, horizon: 0.82 }
+		view: { height: 1.4, focal35: 35, horizon: 0.95 }
 	};
 }
 
 /** An ultimate player leaping for the disc on the club field, sun low and behind. */
-export function fieldDisc(kit: 'light' | 'dark' = 'dark'): Scene {
+export function fieldDisc(kit: 'light' | 'dark' = 'light'): Scene {
 	return {
 		setting: 'field', seed: 3, sceneEv: ev100(meters.brightSun), sun: [0.4, 0.5, 0.8], skyShare: 0.3,
 		athlete: { kind: 'disc', x: 0, y: 0.45, z: 4.2, palette: palette({ skin: 'medium', kit, accent: [0.85, 0.85, 0.8] }) },
-		view: { height: 0.9, focal35: 24, horizon: 0.62 }
+		view: { height: 0.9, focal35: 35, horizon: 0.66 }
 	};
 }
 

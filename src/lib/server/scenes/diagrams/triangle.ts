@@ -4,8 +4,8 @@ import { colours, line, round, svgDocument, text, type Diagram } from './svg';
 
 // positions in metres, top-down: the camera at the bottom, the athlete ahead, the flash well off to the left
 const camera = { x: 0, y: 0 };
-const subject = { x: 0, y: 4 };
-const light = { x: -2.6, y: 2.6 };
+const subject = { x: 0, y: 3.6 };
+const light = { x: -2.6, y: 2.3 };
 
 const W = 640;
 const H = 400;
@@ -45,8 +45,9 @@ export const lightTriangle: Diagram = {
 			// flash head on a stand, aimed at the athlete
 			`<circle cx="${l.x}" cy="${l.y}" r="16" fill="${colours.flash}"/>`,
 			text(l.x, l.y - 26, 'flash on a stand', { anchor: 'middle' }),
-			text(s.x - 62, s.y + 40, `${Math.round(angle)}°`, { anchor: 'end', mono: true, fill: colours.flashSoft, size: 17 }),
-			text((l.x + s.x) / 2 - 14, (l.y + s.y) / 2 - 10, `${toLight.toFixed(1)} m`, { anchor: 'end', mono: true, fill: colours.flashSoft }),
+			// the angle inside its arc, on the bisector; the distance above the middle of the light's line
+			text(s.x + (r + 26) * Math.cos((a1 + a2) / 2), s.y + (r + 26) * Math.sin((a1 + a2) / 2) + 6, `${Math.round(angle)}°`, { anchor: 'middle', mono: true, fill: colours.flashSoft, size: 17 }),
+			text((l.x + s.x) / 2 - 8, (l.y + s.y) / 2 - 12, `${toLight.toFixed(1)} m`, { anchor: 'end', mono: true, fill: colours.flashSoft }),
 			text(c.x + 10, (c.y + s.y) / 2, `${toCamera.toFixed(1)} m`, { mono: true, fill: colours.ambientSoft }),
 			text(24, 34, 'Seen from above: light, athlete and camera make a wide triangle', { fill: colours.muted, size: 14 })
 		].join('');

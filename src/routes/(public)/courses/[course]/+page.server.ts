@@ -4,6 +4,7 @@ import { readEnrolmentState, readCourseNotice } from '$lib/server/payments/cours
 import { startCheckout } from '$lib/server/payments/checkout';
 import { requireUser } from '$lib/server/guards';
 import { courseProgress } from '$lib/server/progress';
+import { instructorForCourse } from '$lib/server/instructors';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals, url }) => {
@@ -20,6 +21,7 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 			currency: course.currency
 		},
 		modules,
+		instructorSlug: instructorForCourse(course.slug)?.slug ?? null,
 		enrolment: await readEnrolmentState(locals.user, course.id),
 		notice: readCourseNotice(url.searchParams, modules),
 		// a signed-in learner's completed lessons (by slug) and where they left off

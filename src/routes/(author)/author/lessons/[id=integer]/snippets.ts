@@ -12,7 +12,8 @@ export const WIDGET_SNIPPETS: Record<WidgetName, string> = {
 	FreezeMeter: '<FreezeMeter speed="6" distance="5" focal="24" sensor="36" pixels="6000" shutter="1/1000" />',
 	SafetyNote: '<SafetyNote topics="stands,eyes" />',
 	Quiz: '<Quiz id="question-1" question="Write the question here (no double quotes)" answer="1" tolerance="0" unit="" />',
-	AssignmentCard: '<AssignmentCard slug="assignment-slug" />'
+	AssignmentCard: '<AssignmentCard slug="assignment-slug" />',
+	Figure: '<Figure name="dim-and-relight" alt="Say what the picture shows (no double quotes)" caption="What to notice" />'
 };
 
 /** Puts `text` at the cursor as a block of its own: blank lines around it, so a widget stands on its own line. */
