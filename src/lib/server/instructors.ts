@@ -1,4 +1,7 @@
 // The instructors' public profiles (the demo's one is invented and says so), and which course each teaches.
+import { and, asc, eq, inArray } from 'drizzle-orm';
+import { db } from './db';
+import { courses } from './db/schema';
 
 /** A public instructor profile: who they are, what they teach, and the drawn portrait from `$lib/illustrations`. */
 export interface InstructorProfile {
@@ -53,4 +56,14 @@ export function instructorBySlug(slug: string): InstructorProfile | null {
 /** The profile of whoever teaches the course `courseSlug`, or null when it has none yet. */
 export function instructorForCourse(courseSlug: string): InstructorProfile | null {
 	return profiles.find((p) => p.courses.includes(courseSlug)) ?? null;
+}
+
+/** The published courses a profile lists, by title: a course still being written stays off the public page. */
+export async function publishedCoursesOf(profile: InstructorProfile): Promise<{ slug: string; title: string; summary: string }[]> {
+	if (profile.courses.length === 0) return [];
+	return db
+		.select({ slug: courses.slug, title: courses.title, summary: courses.summary })
+		.from(courses)
+		.where(and(inArray(courses.slug, profile.courses), eq(courses.published, true)))
+		.orderBy(asc(courses.title));
 }

@@ -50,6 +50,35 @@ const bmxChest: Vec3 = [0, 1.0, 3.8];
 const W = 400;
 const H = 280;
 
+const sunBehind: Scene = { ...trailRunner('light'), sun: [0.7, 0.35, 0.8], skyShare: 0.2 };
+
+/** Which frames of a burst the flash is ready for: it needs `recycle` seconds after each pop; frames come every 1/fps s. */
+// Common practice, no published source: recycle time taken as proportional to the power asked (lesson 18's working rule).
+export function litFrames(args: { frames: number; fps: number; recycle: number }): boolean[] {
+	const lit: boolean[] = [];
+	let ready = 0;
+	for (let i = 0; i < args.frames; i++) {
+		const t = i / args.fps;
+		// a small tolerance so a recycle of exactly n frame intervals counts as ready on the nth frame
+		const fires = t + 1e-9 >= ready;
+		if (fires) ready = t + args.recycle;
+		lit.push(fires);
+	}
+	return lit;
+}
+
+/** Five frames of a burst at 10 frames a second, the runner moving 5 m/s; the flash at 1/8 power of a 2 s full-power recycle. */
+function burstPanels(): Panel[] {
+	const base = trailRunner('light');
+	const lit = litFrames({ frames: 5, fps: 10, recycle: 2 * (1 / 8) });
+	return lit.map((fires, i) => ({
+		label: `Frame ${i + 1}: ${fires ? 'lit' : 'flash recharging'}`,
+		scene: { ...base, athlete: { ...base.athlete, x: base.athlete.x - 0.9 + i * 0.5 } },
+		camera: at({ ...meters.brightSun, aperture: 16 }),
+		flashes: fires ? [runnerKey(1 / 4)] : []
+	}));
+}
+
 export const renderedFigures: RenderedFigure[] = [
 	{
 		name: 'landing-ambient',
@@ -205,6 +234,23 @@ export const renderedFigures: RenderedFigure[] = [
 		panels: [
 			{ label: '85 mm from 9 m: the buildings crowd in behind', scene: { ...bmx, athlete: { ...bmx.athlete, z: 9 }, view: { ...bmx.view, focal35: 85 } }, camera: at(meters.brightSun), flashes: [] },
 			{ label: '16 mm from 1.9 m, low: the same-sized rider, the world opens out', scene: { ...bmx, athlete: { ...bmx.athlete, z: 1.9 }, view: { ...bmx.view, height: 0.4, focal35: 16 } }, camera: at(meters.brightSun), flashes: [] }
+		]
+	},
+	{
+		// lesson 18: a burst at 10 frames a second with the flash at 1/8 power recycling in 0.25 s: it lights every third frame
+		name: 'burst-runner',
+		panelWidth: 240,
+		panelHeight: 200,
+		panels: burstPanels()
+	},
+	{
+		// lesson 19: the sun behind as a rim light; then the ambient a stop under and the flash as the key on the face
+		name: 'sun-rim-runner',
+		panelWidth: W,
+		panelHeight: H,
+		panels: [
+			{ label: 'Daylight only, at the meter: a bright edge, the face in shadow', scene: sunBehind, camera: at(meters.brightSun), flashes: [] },
+			{ label: '1 stop under, flash as the key: lit face, the sun’s rim kept', scene: sunBehind, camera: at({ ...meters.brightSun, aperture: 16 }), flashes: [runnerKey(0.5)] }
 		]
 	}
 ];

@@ -5,7 +5,7 @@ import { ev100 } from '../../exposure/apex';
 import { srgbDecode } from '../../exposure/srgb';
 import { renderedSwatch } from '../../exposure/swatch';
 import { encodeSrgb, toWebp, type Picture } from './encode';
-import { renderedFigures } from './figures';
+import { litFrames, renderedFigures } from './figures';
 import { ambientScale, flashScale, lightRgb, whiteBalanceMatrix } from './light';
 import { renderScene } from './render';
 
@@ -136,5 +136,18 @@ describe('rendered frames', () => {
 		const w1 = await toWebp(one as Picture);
 		const w2 = await toWebp(two as Picture);
 		expect(w1.equals(w2)).toBe(true);
+	});
+});
+
+describe('a burst against the flash’s recycle time', () => {
+	it('lights every third frame at 10 frames a second when the flash needs 0.25 s', () => {
+		// lesson 18's worked example (common practice, no published source: recycle time proportional to power):
+		// 2 s at full power, 1/8 power → 0.25 s; frames every 0.1 s → frames 1, 4, 7 and 10 of ten
+		const lit = litFrames({ frames: 10, fps: 10, recycle: 2 / 8 });
+		expect(lit.flatMap((on, i) => (on ? [i + 1] : []))).toEqual([1, 4, 7, 10]);
+		// full power (2 s) lights only the first frame of the burst
+		expect(litFrames({ frames: 10, fps: 10, recycle: 2 }).filter(Boolean)).toHaveLength(1);
+		// a recycle of exactly two frame intervals lights every other frame
+		expect(litFrames({ frames: 6, fps: 10, recycle: 0.2 })).toEqual([true, false, true, false, true, false]);
 	});
 });
