@@ -18,7 +18,8 @@ const CONTRACT: Record<string, { label: string; attributes: string[] }> = {
 	FreezeMeter: { label: 'Freeze Meter', attributes: ['speed', 'distance', 'focal', 'sensor', 'pixels', 'shutter'] },
 	SafetyNote: { label: 'Safety note', attributes: ['topics'] },
 	Quiz: { label: 'Quiz', attributes: ['id', 'question', 'answer', 'tolerance', 'unit'] },
-	AssignmentCard: { label: 'Assignment', attributes: ['slug'] }
+	AssignmentCard: { label: 'Assignment', attributes: ['slug'] },
+	Figure: { label: 'Figure', attributes: ['name', 'alt', 'caption'] }
 };
 
 const modules = import.meta.glob<{ default: Component<Record<string, string>> }>('./*.svelte', { eager: true });
