@@ -8,6 +8,8 @@ export const WIDGET_ATTRIBUTES = {
 	FalloffRuler: ['gn', 'power', 'distance', 'iso', 'aperture'],
 	SyncGate: ['shutter', 'sync', 'entry'],
 	ExposureSplit: ['scene', 'aperture', 'shutter', 'iso', 'gn', 'power', 'distance', 'sync'],
+	DaylightBlend: ['rim', 'shade', 'flash', 'background'],
+	BurstBudget: ['power', 'recycle', 'fps', 'frames', 'hss'],
 	GelMixer: ['ambient', 'flash', 'gel', 'wb'],
 	LightPlan: ['preset'],
 	FreezeMeter: ['speed', 'distance', 'focal', 'sensor', 'pixels', 'shutter'],

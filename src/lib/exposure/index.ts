@@ -12,5 +12,6 @@ export * from './chromaticity';
 export * from './planckian';
 export * from './swatch';
 export * from './motion';
+export * from './burst';
 export * from './geometry';
 export type { Vec3, Mat3 } from './matrix';

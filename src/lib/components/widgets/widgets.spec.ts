@@ -13,6 +13,8 @@ const CONTRACT: Record<string, { label: string; attributes: string[] }> = {
 	FalloffRuler: { label: 'Falloff Ruler', attributes: ['gn', 'power', 'distance', 'iso', 'aperture'] },
 	SyncGate: { label: 'Sync Gate', attributes: ['shutter', 'sync', 'entry'] },
 	ExposureSplit: { label: 'Exposure Split', attributes: ['scene', 'aperture', 'shutter', 'iso', 'gn', 'power', 'distance', 'sync'] },
+	DaylightBlend: { label: 'Daylight Blend', attributes: ['rim', 'shade', 'flash', 'background'] },
+	BurstBudget: { label: 'Burst Budget', attributes: ['power', 'recycle', 'fps', 'frames', 'hss'] },
 	GelMixer: { label: 'Gel Mixer', attributes: ['ambient', 'flash', 'gel', 'wb'] },
 	LightPlan: { label: 'Light Plan', attributes: ['preset'] },
 	FreezeMeter: { label: 'Freeze Meter', attributes: ['speed', 'distance', 'focal', 'sensor', 'pixels', 'shutter'] },

@@ -6,6 +6,8 @@ export const WIDGET_SNIPPETS: Record<WidgetName, string> = {
 	AmbientDimmer: '<AmbientDimmer scene="bright-sun" under="2" sync="1/250" iso="100" />',
 	FalloffRuler: '<FalloffRuler gn="60" power="1/4" distance="3" iso="100" aperture="8" />',
 	SyncGate: '<SyncGate shutter="1/1000" sync="1/250" entry="1" />',
+	DaylightBlend: '<DaylightBlend rim="0" shade="-3" flash="-0.2" background="-1" />',
+	BurstBudget: '<BurstBudget power="1/8" recycle="2" fps="10" frames="10" hss="0" />',
 	ExposureSplit: '<ExposureSplit scene="14" aperture="8" shutter="1/250" iso="100" gn="60" power="1/4" distance="3" sync="1/250" />',
 	GelMixer: '<GelMixer ambient="5600" flash="5600" gel="full-cto" wb="3200" />',
 	LightPlan: '<LightPlan preset="rembrandt" />',
