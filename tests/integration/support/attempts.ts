@@ -44,7 +44,9 @@ export async function passingPair(size = { width: 600, height: 400 }, personal =
 	return { reference, lit };
 }
 
-export function uploadData(fields: { assignment?: string; submissionKey?: string; subjectBox?: string; lightPlan?: string }, files: Record<string, Buffer | Blob>): FormData {
+export function uploadData(
+	fields: { assignment?: string; submissionKey?: string; subjectBox?: string; lightPlan?: string; subjectSpeed?: string; subjectDistance?: string },
+	files: Record<string, Buffer | Blob>): FormData {
 	const data = new FormData();
 	for (const [k, v] of Object.entries(fields)) if (v !== undefined) data.append(k, v);
 	for (const [name, bytes] of Object.entries(files)) {

@@ -32,6 +32,10 @@ export function formatValue(value: number, unit: CriterionResult['unit']): strin
 			return value ? 'fired' : 'not fired';
 		case 'percent':
 			return `${Math.round(value)} %`;
+		case 'px':
+			return `${value < 10 ? value.toFixed(1) : Math.round(value)} px`;
+		case 'judged':
+			return '—';
 	}
 }
 

@@ -9,6 +9,7 @@ import type { AuthUser } from '../auth';
 import { findAssignment } from './assignment';
 import { attemptFolder } from './keys';
 import { queueGrading } from './queue';
+import { lightPlanProblem, specWithStatedMotion } from './stated';
 import { checkFrames, writeFrames, type FrameProblems } from './store-frames';
 import type { UploadForm } from './upload-form';
 
@@ -46,6 +47,11 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 		return { kind: 'unavailable', message: 'This assignment’s criteria are being fixed, so uploads are closed for now. Please try again later.' };
 	}
 
+	// the spec this Attempt keeps and is graded by: the Assignment's, with what the learner stated
+	const spec = specWithStatedMotion(assignment.spec, form.stated);
+	const planProblem = lightPlanProblem(assignment.spec, form.lightPlan);
+	if (planProblem) return { kind: 'invalid', message: planProblem, frames: {} };
+
 	const { frames, problems } = await checkFrames(assignment.spec.frames, form.files);
 	if (Object.keys(problems).length > 0) {
 		return { kind: 'invalid', message: 'Some frames cannot be used. Nothing was stored; fix them and send again.', frames: problems };
@@ -62,7 +68,7 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 					userId: user.id,
 					assignmentId: assignment.id,
 					submissionKey: form.submissionKey,
-					spec: assignment.spec,
+					spec,
 					subjectBox: form.subjectBox,
 					lightPlan: form.lightPlan
 				})

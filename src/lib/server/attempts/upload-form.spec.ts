@@ -39,4 +39,11 @@ describe('readUploadForm', () => {
 		expect(readUploadForm(form({ ...base, lightPlan: JSON.stringify(farLight) }))).toMatchObject({ ok: false, message: expect.stringContaining('one to three lights') });
 		expect(readUploadForm(form({ ...base, lightPlan: JSON.stringify({ ...plan, lights: [] }) }))).toMatchObject({ ok: false });
 	});
+
+	it("reads the subject's stated speed and distance, empty as not stated, and refuses nonsense", () => {
+		expect(readUploadForm(form(base))).toMatchObject({ ok: true, form: { stated: { speed: null, distance: null } } });
+		expect(readUploadForm(form({ ...base, subjectSpeed: '7.5', subjectDistance: '12' }))).toMatchObject({ ok: true, form: { stated: { speed: 7.5, distance: 12 } } });
+		expect(readUploadForm(form({ ...base, subjectSpeed: 'quick' }))).toMatchObject({ ok: false, message: expect.stringContaining("subject's speed") });
+		expect(readUploadForm(form({ ...base, subjectDistance: '-3' }))).toMatchObject({ ok: false, message: expect.stringContaining("subject's distance") });
+	});
 });

@@ -1,12 +1,15 @@
-// Reads the upload form (multipart): assignment, submission key, subject box, optional Light Plan and one file per frame.
+// Reads the upload form (multipart): assignment, submission key, subject box, optional Light Plan, stated speed and distance, one file per frame.
 import { checkBox, parseBox, DEFAULT_SUBJECT_BOX, type Box } from '../analysis/index';
 import { parseLightPlan, type AttachedLightPlan } from './light-plan';
+import { readStatedNumber, type StatedMotion } from './stated';
 
 export interface UploadForm {
 	assignmentSlug: string;
 	submissionKey: string;
 	subjectBox: Box;
 	lightPlan: AttachedLightPlan | null;
+	/** the subject's speed and distance, when the learner gave them (for blur criteria) */
+	stated: StatedMotion;
 	/** by frame name, from fields named `frame:<name>` */
 	files: Map<string, File>;
 }
@@ -39,10 +42,16 @@ export function readUploadForm(data: FormData): UploadFormResult {
 	const plan = parseLightPlan(text(data, 'lightPlan'));
 	if (!plan.ok) return { ok: false, message: plan.message };
 
+	const speed = readStatedNumber(text(data, 'subjectSpeed'), 'speed');
+	if (!speed.ok) return { ok: false, message: speed.message };
+	const distance = readStatedNumber(text(data, 'subjectDistance'), 'distance');
+	if (!distance.ok) return { ok: false, message: distance.message };
+
 	const files = new Map<string, File>();
 	for (const [name, value] of data.entries()) {
 		if (!name.startsWith('frame:') || typeof value === 'string') continue;
 		files.set(name.slice('frame:'.length), value);
 	}
-	return { ok: true, form: { assignmentSlug, submissionKey, subjectBox, lightPlan: plan.plan, files } };
+	const stated = { speed: speed.value, distance: distance.value };
+	return { ok: true, form: { assignmentSlug, submissionKey, subjectBox, lightPlan: plan.plan, stated, files } };
 }

@@ -17,7 +17,9 @@ const EXAMPLES: Record<string, unknown> = {
 	bracket: { kind: 'bracket', offsets: [0, -1, 1] },
 	sync: { kind: 'sync' },
 	'flash-share': { kind: 'flash-share', share: 0.5 },
-	'subject-clipping': { kind: 'subject-clipping' }
+	'subject-clipping': { kind: 'subject-clipping' },
+	'motion-blur': { kind: 'motion-blur', maxPx: 3, speed: 6, distance: 5 },
+	'mentor-judged': { kind: 'mentor-judged', look: 'a triangle of light under the far eye' }
 };
 
 const parse = (value: unknown) => criterionSchema.parse(value) as Criterion;
@@ -41,6 +43,8 @@ describe('describeCriterion', () => {
 		expect(describeCriterion(parse(EXAMPLES['shutter-min']))).toBe('Use a shutter speed of 1/1000 s or faster.');
 		expect(describeCriterion(parse(EXAMPLES['shutter-max']))).toBe('Use a shutter speed of 1/30 s or slower.');
 		expect(describeCriterion(parse(EXAMPLES['aperture-range']))).toBe('Shoot at an aperture between f/5.6 and f/11.');
+		expect(describeCriterion(parse(EXAMPLES['motion-blur']))).toMatch(/^Freeze the action: a subject at 6 m\/s, 5 m away, may smear at most 3 px/);
+		expect(describeCriterion(parse(EXAMPLES['mentor-judged']))).toBe('A mentor judges from the picture: a triangle of light under the far eye.');
 		expect(describeCriterion(parse(EXAMPLES['focal-max']))).toBe('Use a focal length of 35 mm or wider (35 mm equivalent).');
 		expect(describeCriterion(parse(EXAMPLES.bracket))).toContain('0, −1, +1 EV');
 		expect(describeCriterion(parse({ kind: 'ambient-under', stops: 1.67, sceneEv: 15 }))).toContain('1⅔ ± ⅓ stops under a scene that meters EV 15');

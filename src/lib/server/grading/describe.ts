@@ -1,7 +1,7 @@
 // Says each criterion in plain words for learners (the Assignment card shows these).
 import { formatAperture, formatShutter } from '../../exposure/index';
 import { targetRatio } from './criteria/flash-share';
-import { formatAmount, formatMired, formatMm, formatOffset, formatStopAmount, formatTarget } from './format';
+import { formatAmount, formatMired, formatMm, formatOffset, formatStopAmount, formatTarget, sentence } from './format';
 import { criterionSchema, DEFAULT_SYNC_SPEED, type Criterion, type CriterionInput } from './spec';
 
 /** Accepts a criterion as stored or as an author is still typing it (defaults applied here). */
@@ -48,6 +48,10 @@ function describeParsed(c: Criterion): string {
 				: `Balance your lights so the flash is ${formatOffset(targetRatio(c))} stops against the ambient on the subject (± ${formatAmount(c.tolerance)}).`;
 		case 'subject-clipping':
 			return `Keep the flash-lit subject from blowing out: at most ${c.maxPercent} % of it clipped to white.`;
+		case 'motion-blur':
+			return `Freeze the action: a subject at ${formatAmount(c.speed)} m/s, ${formatAmount(c.distance)} m away, may smear at most ${formatAmount(c.maxPx)} px, counted from your shutter and focal length (you can give your own speed and distance when you upload).`;
+		case 'mentor-judged':
+			return `A mentor judges from the picture: ${sentence(c.look)}`;
 		case 'bracket':
 			return `Shoot a bracket at ${c.offsets.map(formatOffset).join(', ')} EV from the first frame (each within ± ${formatAmount(c.tolerance)}).`;
 	}

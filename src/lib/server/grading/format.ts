@@ -61,3 +61,10 @@ export function formatMired(value: number): string {
 export function formatMm(mm: number): string {
 	return `${Number(mm.toFixed(mm < 10 ? 1 : 0))} mm`;
 }
+
+
+/** Author text closed as a sentence: 'the pose' → 'the pose.' */
+export function sentence(text: string): string {
+	const t = text.trim();
+	return /[.!?]$/.test(t) ? t : `${t}.`;
+}

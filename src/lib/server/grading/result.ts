@@ -5,7 +5,7 @@ import type { AssignmentSpec, CriterionKind } from './spec';
 import { pairOf, type PairMeasure } from './pair/index';
 
 export type CriterionVerdict = 'pass' | 'fail' | 'unknown';
-export type Unit = 'stops' | 'EV' | 's' | 'f-number' | 'ISO' | 'mm' | 'mired' | 'flash' | 'percent';
+export type Unit = 'stops' | 'EV' | 's' | 'f-number' | 'ISO' | 'mm' | 'mired' | 'flash' | 'percent' | 'px' | 'judged';
 /** How `measured` is compared with `target`: within ± tolerance, at least, at most, or between [min, max]. */
 export type Comparison = 'within' | 'at-least' | 'at-most' | 'between';
 

@@ -35,7 +35,7 @@ describe('validateSpec', () => {
 
 	it('knows every criterion kind the issue lists', () => {
 		expect([...CRITERION_KINDS].sort()).toEqual(
-			['ambient-under', 'aperture-range', 'background-cooler', 'background-drop', 'bracket', 'flash-evidence', 'focal-max', 'focal-min', 'iso-max', 'shutter-max', 'shutter-min', 'subject-lift', 'sync', 'flash-share', 'subject-clipping'].sort()
+			['ambient-under', 'aperture-range', 'background-cooler', 'background-drop', 'bracket', 'flash-evidence', 'focal-max', 'focal-min', 'iso-max', 'shutter-max', 'shutter-min', 'subject-lift', 'sync', 'flash-share', 'subject-clipping', 'motion-blur', 'mentor-judged'].sort()
 		);
 	});
 

@@ -107,6 +107,24 @@ export const bracketSchema = z
 	})
 	.strict();
 
+/** Blur of a moving subject in pixels, from the frame's Exif shutter and 35 mm equivalent focal length: at most `maxPx`. */
+export const motionBlurSchema = z
+	.object({
+		kind: z.literal('motion-blur'),
+		maxPx: z.number().positive().max(1000),
+		/** Subject speed across the frame, m/s; the learner may state their own on the upload form. */
+		speed: z.number().positive().max(100),
+		/** Camera to subject, metres; the learner may state their own on the upload form. */
+		distance: z.number().positive().max(1000),
+		/** Set on an Attempt's copy of the spec when speed and distance are the ones the learner stated. */
+		stated: z.boolean().optional(),
+		...graded
+	})
+	.strict();
+
+/** What only a person can judge in the picture (a light pattern on a face): handed to a mentor, with what to look for. */
+export const mentorJudgedSchema = z.object({ kind: z.literal('mentor-judged'), look: z.string().trim().min(1).max(400), ...graded }).strict();
+
 // One line per criterion kind: add its schema here, its evaluator in criteria/index.ts, its words in describe.ts.
 const CRITERION_SCHEMAS = [
 	ambientUnderSchema,
@@ -123,7 +141,9 @@ const CRITERION_SCHEMAS = [
 	bracketSchema,
 	syncSchema,
 	flashShareSchema,
-	subjectClippingSchema
+	subjectClippingSchema,
+	motionBlurSchema,
+	mentorJudgedSchema
 ] as const;
 
 export const criterionSchema = z.discriminatedUnion('kind', CRITERION_SCHEMAS);
@@ -204,6 +224,8 @@ export const assignmentSpecSchema = z
 		sceneEv: stops(25).optional(),
 		/** The camera's flash sync speed in seconds, for sync and for advice (default 1/250 s). */
 		syncSpeed: seconds.optional(),
+		/** The upload must carry a Light Plan with at least this many lights (for a mentor judging light placement). */
+		lightPlan: z.object({ minLights: z.number().int().min(1).max(3) }).strict().optional(),
 		criteria: z.array(criterionSchema).min(1).max(40),
 		/** What the mentor scores (rubric item ids); without it, defaults follow the kinds of criteria. */
 		rubric: z.array(z.enum(RUBRIC_IDS)).min(1).max(RUBRIC_IDS.length).optional()

@@ -7,6 +7,8 @@ import { gradeBackgroundDrop } from './background-drop';
 import { gradeBracket } from './bracket';
 import { gradeFlashEvidence } from './flash-evidence';
 import { gradeFlashShare } from './flash-share';
+import { gradeMentorJudged } from './mentor-judged';
+import { gradeMotionBlur } from './motion-blur';
 import { gradeSettingsLimit } from './settings-limits';
 import { gradeSubjectClipping } from './subject-clipping';
 import { gradeSubjectLift } from './subject-lift';
@@ -29,7 +31,9 @@ const EVALUATORS: Evaluators = {
 	'focal-min': gradeSettingsLimit,
 	sync: gradeSync,
 	'flash-share': gradeFlashShare,
-	'subject-clipping': gradeSubjectClipping
+	'subject-clipping': gradeSubjectClipping,
+	'motion-blur': gradeMotionBlur,
+	'mentor-judged': gradeMentorJudged
 };
 
 export function gradeCriterion(criterion: Criterion, ctx: GradeContext): CriterionResult {

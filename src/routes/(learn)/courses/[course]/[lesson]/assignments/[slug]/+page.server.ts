@@ -14,6 +14,7 @@ export const load: PageServerLoad = async (event) => {
 	const assignment = await findLessonAssignment(course, lesson, slug);
 	if (!assignment) error(404, { message: 'There is no such assignment.' });
 	await requireCourseAccess(user, assignment.course.id, assignment.course.slug);
+	const blur = assignment.spec?.criteria.find((c) => c.kind === 'motion-blur');
 	return {
 		assignment: {
 			slug: assignment.slug,
@@ -21,7 +22,9 @@ export const load: PageServerLoad = async (event) => {
 			brief: assignment.brief,
 			frames: assignment.spec?.frames ?? [],
 			criteria: assignment.spec?.criteria.map(describeCriterion) ?? [],
-			open: assignment.spec !== null
+			open: assignment.spec !== null,
+			motion: blur ? { speed: blur.speed, distance: blur.distance } : null,
+			planLights: assignment.spec?.lightPlan?.minLights ?? null
 		},
 		lesson: assignment.lesson,
 		course: { slug: assignment.course.slug, title: assignment.course.title },
