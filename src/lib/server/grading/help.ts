@@ -22,5 +22,9 @@ export const CRITERION_HELP: Record<CriterionKind, string> = {
 	sync: 'Shutter within the camera’s flash sync speed, or above it when high-speed sync is allowed (the verdict states its cost). Fields: syncSpeed (seconds; default the spec’s syncSpeed, else 1/250), highSpeedSync (true/false), frame.',
 	'flash-share':
 		'The flash’s share of the subject’s light, measured from the pair; for lessons with the sun as a second light. Give share (0.02–0.98, 0.5 = flash equals ambient) or ratioStops (flash over ambient in stops), and tolerance in stops of that ratio (default ½). Needs a reference frame; without one the verdict is left to a mentor. Fields: share or ratioStops, tolerance, frame, reference.',
-	'subject-clipping': 'At most this share of the flash-lit subject blown out to white. Fields: maxPercent (default 10), frame, reference.'
+	'subject-clipping': 'At most this share of the flash-lit subject blown out to white. Fields: maxPercent (default 10), frame, reference.',
+	'motion-blur':
+		'Blur of a moving subject in pixels, from the frame’s Exif shutter time and 35 mm equivalent focal length and the frame’s width, for a subject at speed (m/s) and distance (m). Learners may give their own speed and distance when they upload. Fields: maxPx, speed, distance, frame.',
+	'mentor-judged':
+		'Something only a person can judge in the picture (a light pattern, a pose): the verdict hands it to a mentor with your words. Pair it with lightPlan: { minLights } on the spec to have learners attach their Light Plan. Fields: look, frame.'
 };
