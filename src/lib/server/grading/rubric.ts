@@ -36,8 +36,9 @@ export const DEFAULT_RUBRIC_BY_KIND: Record<string, readonly RubricId[]> = {
 	sync: ['settings', 'moment'],
 	'flash-share': ['light', 'balance'],
 	'subject-clipping': ['light'],
-	// announced by work in progress; harmless until the spec knows it
-	'motion-blur': ['moment']
+	'motion-blur': ['moment'],
+	// a pattern of light on a face: its shape and direction, and how the athlete stands out
+	'mentor-judged': ['light', 'balance']
 };
 
 /** Every Assignment is also judged as a photograph: the moment is always scored. */
