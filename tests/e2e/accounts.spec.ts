@@ -140,8 +140,8 @@ test('an admin sees People and Mailbox, searches people and reads the role log',
 	await expect(page).toHaveURL(/q=mentor%40harborlane/);
 	await expect(page.getByRole('row')).toHaveCount(2);
 	await expect(page.getByRole('cell', { name: 'mentor@harborlane.example' })).toBeVisible();
-	await page.getByRole('link', { name: 'Role log' }).click();
-	await expect(page.getByRole('heading', { name: 'Role log' })).toBeVisible();
+	await page.getByRole('link', { name: 'Audit log' }).click();
+	await expect(page.getByRole('heading', { name: 'Audit log' })).toBeVisible();
 	await expect(header.getByRole('link', { name: 'Mailbox' })).toBeVisible();
 });
 

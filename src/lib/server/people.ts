@@ -3,6 +3,7 @@ import { asc, count, desc, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from './db';
 import { roleAudit, roles, users, type Role } from './db/schema';
+import { recordAudit } from './audit';
 import { endAllSessions } from './auth';
 
 export const peopleSorts = ['name', 'email', 'created'] as const;
@@ -97,6 +98,9 @@ export async function setRoles(actor: { id: string; email: string }, userId: str
 			rolesBefore: before,
 			rolesAfter: next
 		});
+		const added = next.filter((r) => !before.includes(r)).map((r) => `+${r}`);
+		const removed = before.filter((r) => !next.includes(r)).map((r) => `−${r}`);
+		await recordAudit(tx, actor, { action: 'role.change', subject: target.email, detail: [...added, ...removed].join(' '), href: `/admin/people?q=${encodeURIComponent(target.email)}` });
 		await endAllSessions(userId, tx);
 		return { ok: true, changed: true, name: target.name, roles: next, selfChanged: actor.id === userId } as const;
 	});

@@ -5,6 +5,7 @@ import { db } from '../db';
 import { courses, enrolments, users } from '../db/schema';
 import { escapeLike } from './admin-payments';
 import { activateEnrolment } from './enrolments';
+import { recordAudit } from '../audit';
 
 export const enrolmentsPageSize = 25;
 
@@ -60,31 +61,46 @@ export async function listEnrolments(query: EnrolmentsQuery) {
 
 export const grantSchema = z.object({
 	email: z.string().trim().toLowerCase().max(254).pipe(z.email('Enter the learner’s e-mail address.')),
-	course: z.string().trim().min(1, 'Choose a course.').max(100)
+	course: z.string().trim().min(1, 'Choose a course.').max(100),
+	reason: z.string().trim().max(500, 'Keep the reason under 500 characters.').default('')
 });
 
 export type ChangeResult = { ok: true; message: string } | { ok: false; message: string };
 
 type Actor = { id: string; email: string };
 
-/** Opens a course to a person by hand (a scholarship, a mentor's guest); the server log keeps who did it. */
-export async function grantEnrolment(actor: Actor, email: string, courseSlug: string): Promise<ChangeResult> {
+/** Opens a course to a person by hand (a scholarship, a mentor's guest); the audit log keeps who did it and why. */
+export async function grantEnrolment(actor: Actor, email: string, courseSlug: string, reason = ''): Promise<ChangeResult> {
 	const [user] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(sql`lower(${users.email})`, email.toLowerCase()));
 	if (!user) return { ok: false, message: `Nobody has an account with ${email}.` };
 	const course = await db.query.courses.findFirst({ where: eq(courses.slug, courseSlug) });
 	if (!course) return { ok: false, message: 'That course does not exist.' };
-	await activateEnrolment(db, { userId: user.id, courseId: course.id, source: 'admin', paymentId: null });
-	console.info(`[enrolments] ${actor.email} granted ${email} access to ${course.slug}`);
+	await db.transaction(async (tx) => {
+		await activateEnrolment(tx, { userId: user.id, courseId: course.id, source: 'admin', paymentId: null });
+		await recordAudit(tx, actor, { action: 'enrolment.grant', subject: `${email} in ${course.title}`, reason, href: `/admin/enrolments?q=${encodeURIComponent(email)}` });
+	});
 	return { ok: true, message: `${user.name} is enrolled in ${course.title}.` };
 }
 
-export async function setEnrolmentStatus(actor: Actor, enrolmentId: number, status: 'active' | 'revoked'): Promise<ChangeResult> {
-	const rows = await db
-		.update(enrolments)
-		.set(status === 'revoked' ? { status, revokedAt: sql`now()` } : { status, revokedAt: null })
-		.where(eq(enrolments.id, enrolmentId))
-		.returning({ id: enrolments.id, userId: enrolments.userId, courseId: enrolments.courseId });
-	if (!rows[0]) return { ok: false, message: 'That enrolment does not exist.' };
-	console.info(`[enrolments] ${actor.email} set enrolment ${enrolmentId} (${rows[0].userId} in course ${rows[0].courseId}) to ${status}`);
-	return { ok: true, message: status === 'revoked' ? 'Access revoked.' : 'Access restored.' };
+export async function setEnrolmentStatus(actor: Actor, enrolmentId: number, status: 'active' | 'revoked', reason = ''): Promise<ChangeResult> {
+	return db.transaction(async (tx) => {
+		const rows = await tx
+			.update(enrolments)
+			.set(status === 'revoked' ? { status, revokedAt: sql`now()` } : { status, revokedAt: null })
+			.where(eq(enrolments.id, enrolmentId))
+			.returning({ id: enrolments.id, userId: enrolments.userId, courseId: enrolments.courseId });
+		if (!rows[0]) return { ok: false, message: 'That enrolment does not exist.' } as const;
+		const [who] = await tx
+			.select({ email: users.email, course: courses.title })
+			.from(users)
+			.innerJoin(courses, eq(courses.id, rows[0].courseId))
+			.where(eq(users.id, rows[0].userId));
+		await recordAudit(tx, actor, {
+			action: status === 'revoked' ? 'enrolment.revoke' : 'enrolment.restore',
+			subject: who ? `${who.email} in ${who.course}` : `enrolment ${enrolmentId}`,
+			reason,
+			href: who ? `/admin/enrolments?q=${encodeURIComponent(who.email)}` : null
+		});
+		return { ok: true, message: status === 'revoked' ? 'Access revoked.' : 'Access restored.' } as const;
+	});
 }

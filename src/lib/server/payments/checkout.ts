@@ -29,7 +29,7 @@ export async function startCheckout(user: AuthUser, courseSlug: string, couponTy
 	const amount = discountedCents(course.priceCents, coupon?.percentOff ?? 0);
 	// nothing to pay (a free course or a 100 % coupon): no checkout, just open the course
 	if (amount === 0) {
-		await activateEnrolment(db, { userId: user.id, courseId: course.id, source: 'free', paymentId: null });
+		await activateEnrolment(db, { userId: user.id, courseId: course.id, source: 'free', paymentId: null, couponCode: coupon?.code ?? null });
 		return { kind: 'enrolled', already: false };
 	}
 

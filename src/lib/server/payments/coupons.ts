@@ -1,7 +1,17 @@
 // Coupon codes: tidying what a learner typed, looking a code up, and the discounted price.
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { db } from '../db';
-import { coupons } from '../db/schema';
+import { coupons, enrolments, payments } from '../db/schema';
+import { couponState, refusal } from './coupon-rules';
+
+/**
+ * How many times a code was used: paid payments (a refunded one gives its use back) and courses a 100 % coupon
+ * made free. A SQL expression over `code`, so the list and checkout count alike.
+ */
+export function usesOf(code: unknown) {
+	return sql<number>`((select count(*) from ${payments} where ${payments.couponCode} = ${code} and ${payments.status} = 'paid')
+		+ (select count(*) from ${enrolments} where ${enrolments.couponCode} = ${code} and ${enrolments.source} = 'free'))::int`;
+}
 
 export type CouponLookup = { ok: true; code: string; percentOff: number } | { ok: false; message: string };
 
@@ -19,8 +29,12 @@ export function discountedCents(priceCents: number, percentOff: number): number 
 export async function findCoupon(typed: string): Promise<CouponLookup> {
 	const code = normaliseCouponCode(typed);
 	if (!/^[A-Z0-9_-]{2,40}$/.test(code)) return { ok: false, message: 'That coupon code is not valid.' };
-	const row = await db.query.coupons.findFirst({ where: eq(coupons.code, code) });
-	if (!row || !row.active) return { ok: false, message: `The coupon ${code} is not valid or has ended.` };
+	const [found] = await db.select({ row: coupons, uses: usesOf(coupons.code) }).from(coupons).where(eq(coupons.code, code));
+	if (!found) return { ok: false, message: `The coupon ${code} is not valid or has ended.` };
+	const { row, uses } = found;
+	const state = couponState(row, uses);
+	// the limit is checked as checkout starts: two learners paying for the last use at once are both honoured
+	if (state !== 'usable') return { ok: false, message: refusal(code, state) };
 	if (row.percentOff < 1 || row.percentOff > 100) return { ok: false, message: `The coupon ${code} is not valid or has ended.` };
 	return { ok: true, code, percentOff: row.percentOff };
 }

@@ -12,14 +12,15 @@ type Runner = Db | Tx;
  */
 export async function activateEnrolment(
 	tx: Runner,
-	input: { userId: string; courseId: number; source: Enrolment['source']; paymentId: number | null }
+	input: { userId: string; courseId: number; source: Enrolment['source']; paymentId: number | null; couponCode?: string | null }
 ): Promise<void> {
+	const couponCode = input.couponCode ?? null;
 	await tx
 		.insert(enrolments)
-		.values({ ...input, status: 'active' })
+		.values({ ...input, couponCode, status: 'active' })
 		.onConflictDoUpdate({
 			target: [enrolments.userId, enrolments.courseId],
-			set: { status: 'active', source: input.source, paymentId: input.paymentId, revokedAt: null }
+			set: { status: 'active', source: input.source, paymentId: input.paymentId, couponCode, revokedAt: null }
 		});
 }
 

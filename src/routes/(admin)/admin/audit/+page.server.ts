@@ -1,11 +1,10 @@
-// The role log: every change of roles, newest first.
-import { z } from 'zod';
+// The audit log: every consequential action (who, when, what, why), filtered by URL params, a page at a time.
 import { requireRole } from '$lib/server/guards';
-import { listRoleAudit } from '$lib/server/people';
+import { AUDIT_ACTION_LABELS, listAudit, readAuditQuery } from '$lib/server/audit';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'admin');
-	const page = z.coerce.number().int().min(1).max(100_000).catch(1).parse(event.url.searchParams.get('page') ?? 1);
-	return { page, ...(await listRoleAudit(page)) };
+	const query = readAuditQuery(event.url.searchParams);
+	return { query, labels: AUDIT_ACTION_LABELS, ...(await listAudit(query)) };
 };

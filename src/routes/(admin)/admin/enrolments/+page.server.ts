@@ -16,9 +16,9 @@ export const actions = {
 		const data = await event.request.formData();
 		const email = String(data.get('email') ?? '');
 		const course = String(data.get('course') ?? '');
-		const parsed = grantSchema.safeParse({ email, course });
+		const parsed = grantSchema.safeParse({ email, course, reason: String(data.get('reason') ?? '') });
 		if (!parsed.success) return fail(400, { grant: { ok: false, text: parsed.error.issues[0]?.message ?? 'Check the form.', email } });
-		const result = await grantEnrolment(admin, parsed.data.email, parsed.data.course);
+		const result = await grantEnrolment(admin, parsed.data.email, parsed.data.course, parsed.data.reason);
 		if (!result.ok) return fail(400, { grant: { ok: false, text: result.message, email } });
 		return { grant: { ok: true, text: result.message, email: '' } };
 	},
@@ -30,7 +30,7 @@ export const actions = {
 		if (!Number.isSafeInteger(id) || id < 1 || (status !== 'active' && status !== 'revoked')) {
 			return fail(400, { change: { id, ok: false, text: 'That change is not valid.' } });
 		}
-		const result = await setEnrolmentStatus(admin, id, status);
+		const result = await setEnrolmentStatus(admin, id, status, String(data.get('reason') ?? '').trim().slice(0, 500));
 		if (!result.ok) return fail(400, { change: { id, ok: false, text: result.message } });
 		return { change: { id, ok: true, text: result.message } };
 	}
