@@ -36,7 +36,16 @@ describe('POST /api/v1/author/spec-check', () => {
 	test('a valid spec: no errors, criteria in plain words', async () => {
 		const spec = JSON.stringify({ frames: ['ambient', 'lit'], criteria: [{ kind: 'shutter-min', seconds: 0.001 }] });
 		const res = await call(specCheck, '/api/v1/author/spec-check', { spec });
-		expect(res.body).toEqual({ errors: [], frames: ['ambient', 'lit'], criteria: ['Use a shutter speed of 1/1000 s or faster.'] });
+		expect(res.body).toEqual({
+			errors: [],
+			frames: ['ambient', 'lit'],
+			criteria: ['Use a shutter speed of 1/1000 s or faster.'],
+			// the defaults for a shutter limit, with the moment always scored
+			rubric: [
+				{ id: 'moment', label: 'Moment and sharpness' },
+				{ id: 'settings', label: 'Camera settings' }
+			]
+		});
 	});
 
 	test('errors carry their path; the readable criteria are still described', async () => {

@@ -57,7 +57,7 @@ describe('coupons', () => {
 			.returning({ id: payments.id });
 		expect(await findCoupon(code)).toEqual({ ok: false, message: `The coupon ${code} has been used as many times as it allows.` });
 		const page = await throughHooks(makeEvent({ path: `/admin/coupons/${code}`, cookies: admin, params: { code } }), (e) => couponPage.load(e as never));
-		const value = (page as { value: { coupon: { uses: number; state: string }; uses: { email: string }[] } }).value;
+		const value = (page as unknown as { value: { coupon: { uses: number; state: string }; uses: { email: string }[] } }).value;
 		expect(value.coupon).toMatchObject({ uses: 1, state: 'used-up' });
 		expect(value.uses.map((u) => u.email)).toEqual([learner.email]);
 		await db.update(payments).set({ status: 'refunded' }).where(eq(payments.id, paid.id));
@@ -95,7 +95,7 @@ describe('coupons', () => {
 describe('audit log', () => {
 	test('filters by action and text, and exports the same rows as CSV with formulas defused', async () => {
 		const page = await throughHooks(makeEvent({ path: `/admin/audit?action=coupon.change&q=${code}`, cookies: admin }), (e) => auditPage.load(e as never));
-		const value = (page as { value: { entries: { action: string; subject: string }[]; total: number } }).value;
+		const value = (page as unknown as { value: { entries: { action: string; subject: string }[]; total: number } }).value;
 		expect(value.total).toBe(2);
 		expect(value.entries.every((e) => e.action === 'coupon.change' && e.subject === code)).toBe(true);
 

@@ -2,10 +2,10 @@
 import { and, eq, max } from 'drizzle-orm';
 import { db } from '../db';
 import { assignments, courses, lessons, modules } from '../db/schema';
-import { describeCriterion, parseSpecText, type SpecError } from '../grading';
+import { describeCriterion, parseSpecText, rubricFor, type SpecError } from '../grading';
 import { ensureDbLesson } from './versions';
 
-export type SpecCheck = { errors: SpecError[]; criteria: string[]; frames: string[] };
+export type SpecCheck = { errors: SpecError[]; criteria: string[]; frames: string[]; rubric: { id: string; label: string }[] };
 
 /**
  * Checks spec text as typed: the errors (empty when valid) and, for whatever criteria can be read, their
@@ -13,7 +13,7 @@ export type SpecCheck = { errors: SpecError[]; criteria: string[]; frames: strin
  */
 export function checkSpecText(text: string): SpecCheck {
 	const result = parseSpecText(text);
-	let loose: { criteria?: unknown; frames?: unknown } = {};
+	let loose: { criteria?: unknown; frames?: unknown; rubric?: unknown } = {};
 	try {
 		const parsed: unknown = JSON.parse(text);
 		if (parsed && typeof parsed === 'object') loose = parsed;
@@ -23,10 +23,13 @@ export function checkSpecText(text: string): SpecCheck {
 	const spec = result.ok ? result.spec : null;
 	const criteria = spec ? spec.criteria : Array.isArray(loose.criteria) ? loose.criteria : [];
 	const frames = spec ? spec.frames : Array.isArray(loose.frames) ? loose.frames.filter((f): f is string => typeof f === 'string') : [];
+	const kinds = criteria.filter((c): c is { kind: string } => !!c && typeof c === 'object' && typeof (c as { kind?: unknown }).kind === 'string');
+	const rubric = spec ? rubricFor(spec) : rubricFor({ criteria: kinds, rubric: Array.isArray(loose.rubric) ? loose.rubric.map(String) : undefined });
 	return {
 		errors: result.ok ? [] : result.errors,
 		criteria: criteria.map((c) => describeCriterion(c as Parameters<typeof describeCriterion>[0])),
-		frames
+		frames,
+		rubric: rubric.map(({ id, label }) => ({ id, label }))
 	};
 }
 

@@ -2,6 +2,7 @@
 import { error, fail } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/guards';
 import { checkSpecText, openAssignment, saveAssignment } from '$lib/server/authoring/assignments';
+import { rubricChoices, specFormKinds } from '$lib/server/authoring/spec-form';
 import { assignmentFieldsSchema, fieldErrors } from '$lib/forms/authoring';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -17,6 +18,8 @@ export const load: PageServerLoad = async (event) => {
 		lesson: { id: lesson.id, title: lesson.title },
 		course: { title: course.title },
 		check: checkSpecText(spec),
+		kinds: specFormKinds(),
+		rubricChoices: rubricChoices(),
 		created: event.url.searchParams.get('notice') === 'created'
 	};
 };

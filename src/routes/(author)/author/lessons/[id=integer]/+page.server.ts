@@ -1,4 +1,6 @@
 // The lesson editor: Markdown with a live preview, drafts, publish/unpublish, settings, and deleting an unused draft.
+import { recordAudit } from '$lib/server/audit';
+import { db } from '$lib/server/db';
 import { error, fail, redirect } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/guards';
 import { deleteDraftLesson, openLessonForEditing, saveLessonSettings } from '$lib/server/authoring/lessons';
@@ -66,6 +68,7 @@ export const actions = {
 		if (!parsed.success) return fail(400, { draft: { ok: false, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error) } });
 		const published = await publishDraft(Number(event.params.id), user.id, parsed.data);
 		if (!published.ok) return fail(400, { draft: { ok: false, message: published.message, problems: published.problems ?? [] } });
+		await recordAudit(db, user, { action: 'lesson.publish', subject: parsed.data.title, detail: `lesson ${event.params.id}`, reason: parsed.data.note, href: `/author/lessons/${event.params.id}` });
 		return { draft: { ok: true, message: published.message } };
 	},
 	unpublish: async (event) => {

@@ -5,13 +5,15 @@ import { db } from '$lib/server/db';
 import { lessons } from '$lib/server/db/schema';
 import { requireRole } from '$lib/server/guards';
 import { checkSpecText, createAssignment } from '$lib/server/authoring/assignments';
+import { rubricChoices, specFormKinds } from '$lib/server/authoring/spec-form';
 import { fieldErrors, newAssignmentSchema } from '$lib/forms/authoring';
 import type { Actions, PageServerLoad } from './$types';
 
-// a starting point that validates: an ambient reference frame, then the lit frame graded against it
+// a starting point that validates, in the frame names every shipped assignment uses: the ambient-only
+// reference frame, then the lit frame graded against it
 const STARTER_SPEC = JSON.stringify(
 	{
-		frames: ['ambient', 'lit'],
+		frames: ['reference', 'lit'],
 		criteria: [
 			{ kind: 'ambient-under', stops: 1.5 },
 			{ kind: 'subject-lift', minStops: 1 }
@@ -26,7 +28,13 @@ export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'author');
 	const lesson = await db.query.lessons.findFirst({ where: eq(lessons.id, Number(event.params.id)) });
 	if (!lesson) error(404, { message: 'There is no such lesson.' });
-	return { lesson: { id: lesson.id, title: lesson.title }, spec: STARTER_SPEC, check: checkSpecText(STARTER_SPEC) };
+	return {
+		lesson: { id: lesson.id, title: lesson.title },
+		spec: STARTER_SPEC,
+		check: checkSpecText(STARTER_SPEC),
+		kinds: specFormKinds(),
+		rubricChoices: rubricChoices()
+	};
 };
 
 export const actions = {

@@ -1,0 +1,26 @@
+// POST /api/v1/author/spec-trial: grades sample frames against spec text as a learner's Attempt would be; stores nothing.
+import { json } from '@sveltejs/kit';
+import { checkApiAccess } from '$lib/server/guards';
+import { trySpec } from '$lib/server/attempts/trial';
+import { maxRequestBytes } from '$lib/server/attempts/limits';
+import type { RequestHandler } from './$types';
+
+export const POST: RequestHandler = async ({ locals, request }) => {
+	const access = checkApiAccess(locals, 'author');
+	if (!access.ok) return access.response;
+	const declared = Number(request.headers.get('content-length') ?? 0);
+	if (declared > maxRequestBytes(12)) return json({ error: 'too-large', message: 'These files are too large to try at once.' }, { status: 413 });
+	let data: FormData;
+	try {
+		data = await request.formData();
+	} catch {
+		return json({ error: 'bad-request', message: 'Send the spec and the frames as a form upload.' }, { status: 400 });
+	}
+	const spec = data.get('spec');
+	if (typeof spec !== 'string' || spec.length > 50_000) return json({ error: 'bad-request', message: 'Send the spec text (at most 50,000 characters).' }, { status: 400 });
+	const files: Record<string, File> = {};
+	for (const [key, value] of data.entries()) if (key.startsWith('frame:') && value instanceof File) files[key.slice(6)] = value;
+	const outcome = await trySpec(spec, files);
+	if (!outcome.ok) return json({ error: 'refused', message: outcome.message, specErrors: outcome.specErrors ?? [] }, { status: outcome.status });
+	return json(outcome);
+};
