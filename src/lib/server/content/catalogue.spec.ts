@@ -57,7 +57,8 @@ describe('the demo course', () => {
 			'high-speed-sync': ['eyes', 'flashing', 'heat', 'thunder'],
 			'cto-and-a-blue-world': ['eyes', 'flashing', 'heat', 'water'],
 			'rembrandt-on-the-move': ['tall-stands', 'flashing', 'heights'],
-			'cross-light-and-rim': ['eyes', 'flashing', 'thunder']
+			'cross-light-and-rim': ['eyes', 'flashing', 'thunder'],
+			'planning-the-shoot': ['general', 'stands', 'flashing', 'thunder']
 		};
 		for (const [slug, topics] of Object.entries(required)) {
 			const lesson = bySlug.get(slug);
