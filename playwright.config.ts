@@ -9,7 +9,9 @@ export default defineConfig({
 	retries: 0,
 	forbidOnly: !!process.env.CI,
 	reporter: [['list']],
-	timeout: 30_000,
+	// generous: up to seven builds share two cores here, and a sign-in hashes with argon2 on purpose
+	timeout: 90_000,
+	expect: { timeout: 15_000 },
 	use: {
 		baseURL: `http://127.0.0.1:${port}`,
 		trace: 'retain-on-failure',

@@ -27,7 +27,8 @@ export const signUpSchema = z
 	.object({
 		name: z.string().trim().min(1, 'Tell us your name.').max(80, 'Use at most 80 characters.'),
 		email,
-		password: newPassword
+		password: newPassword,
+		redirectTo: z.string().max(2000).default('')
 	})
 	.refine((v) => v.email === '' || v.password.trim().toLowerCase() !== v.email, {
 		message: 'Your password cannot be your e-mail address.',

@@ -1,7 +1,7 @@
 // A learner's progress: lessons visited and completed, saved quiz answers, and where to pick up again.
-import { and, desc, eq, inArray, isNotNull, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizzle-orm';
 import { db } from './db';
-import { courses, lessonProgress, lessons, modules, quizAnswers } from './db/schema';
+import { courses, enrolments, lessonProgress, lessons, modules, quizAnswers, type Role } from './db/schema';
 
 export type SavedAnswers = Record<string, { answer: string; correct: boolean }>;
 
@@ -56,33 +56,62 @@ export async function completeIfQuizzesRight(userId: string, lessonId: number, q
 }
 
 export type ResumePoint = { courseSlug: string; lessonSlug: string; lessonTitle: string };
+type Learner = { id: string; roles: readonly Role[] };
 
-/** The lessons of a course the learner completed (by slug) and the published lesson they opened last. */
-export async function courseProgress(userId: string, courseId: number): Promise<{ completed: string[]; resume: ResumePoint | null }> {
+/**
+ * Lessons the person may open now: every lesson for staff; for learners a free lesson or one of a course with an
+ * active enrolment. A refunded or revoked learner is never offered "Continue" into a paid lesson.
+ */
+function openToLearner(user: Learner): SQL | undefined {
+	if (user.roles.some((r) => r !== 'learner')) return undefined;
+	return or(
+		eq(lessons.freePreview, true),
+		sql`exists (select 1 from ${enrolments} e where e.user_id = ${user.id} and e.course_id = ${modules.courseId} and e.status = 'active')`
+	);
+}
+
+/** The lessons of a course the learner completed (by slug) and the published lesson they opened last, if they may open it. */
+export async function courseProgress(user: Learner, courseId: number): Promise<{ completed: string[]; resume: ResumePoint | null }> {
 	const rows = await db
-		.select({ slug: lessons.slug, title: lessons.title, completedAt: lessonProgress.completedAt, courseSlug: courses.slug })
+		.select({ slug: lessons.slug, title: lessons.title, completedAt: lessonProgress.completedAt, courseSlug: courses.slug, open: sql<boolean>`${openToLearner(user) ?? sql`true`}` })
 		.from(lessonProgress)
 		.innerJoin(lessons, eq(lessonProgress.lessonId, lessons.id))
 		.innerJoin(modules, eq(lessons.moduleId, modules.id))
 		.innerJoin(courses, eq(modules.courseId, courses.id))
-		.where(and(eq(lessonProgress.userId, userId), eq(modules.courseId, courseId), eq(lessons.published, true)))
+		.where(and(eq(lessonProgress.userId, user.id), eq(modules.courseId, courseId), eq(lessons.published, true)))
 		.orderBy(desc(lessonProgress.lastVisitedAt));
-	const last = rows[0];
+	const last = rows.find((r) => r.open);
 	return {
 		completed: rows.filter((r) => r.completedAt !== null).map((r) => r.slug),
 		resume: last ? { courseSlug: last.courseSlug, lessonSlug: last.slug, lessonTitle: last.title } : null
 	};
 }
 
-/** For the catalogue: per course slug, the published lesson the learner opened last. */
-export async function resumePoints(userId: string): Promise<Record<string, ResumePoint>> {
+function resumeQuery(user: Learner) {
+	return db
+		.select({ courseSlug: courses.slug, lessonSlug: lessons.slug, lessonTitle: lessons.title })
+		.from(lessonProgress)
+		.innerJoin(lessons, eq(lessonProgress.lessonId, lessons.id))
+		.innerJoin(modules, eq(lessons.moduleId, modules.id))
+		.innerJoin(courses, eq(modules.courseId, courses.id))
+		.where(and(eq(lessonProgress.userId, user.id), eq(lessons.published, true), eq(courses.published, true), isNotNull(lessonProgress.lastVisitedAt), openToLearner(user)));
+}
+
+/** For the catalogue: per course slug, the published lesson the person opened last among those they may open. */
+export async function resumePoints(user: Learner): Promise<Record<string, ResumePoint>> {
 	const rows = await db
 		.selectDistinctOn([courses.id], { courseSlug: courses.slug, lessonSlug: lessons.slug, lessonTitle: lessons.title })
 		.from(lessonProgress)
 		.innerJoin(lessons, eq(lessonProgress.lessonId, lessons.id))
 		.innerJoin(modules, eq(lessons.moduleId, modules.id))
 		.innerJoin(courses, eq(modules.courseId, courses.id))
-		.where(and(eq(lessonProgress.userId, userId), eq(lessons.published, true), isNotNull(lessonProgress.lastVisitedAt)))
+		.where(and(eq(lessonProgress.userId, user.id), eq(lessons.published, true), isNotNull(lessonProgress.lastVisitedAt), openToLearner(user)))
 		.orderBy(courses.id, desc(lessonProgress.lastVisitedAt));
 	return Object.fromEntries(rows.map((r) => [r.courseSlug, r]));
+}
+
+/** The one lesson to continue with after sign-in: the newest visit the person may still open, in any course. */
+export async function latestResumePoint(user: Learner): Promise<ResumePoint | null> {
+	const [row] = await resumeQuery(user).orderBy(desc(lessonProgress.lastVisitedAt)).limit(1);
+	return row ?? null;
 }

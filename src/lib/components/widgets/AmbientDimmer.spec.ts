@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { apertureFor, daylightEv, equivalentExposures, ev100, formatAperture, markedSeries, nearestMarked, type DaylightCondition } from '$lib/exposure';
 import AmbientDimmer from './AmbientDimmer.svelte';
 import { elementsByTestId, listItems, textOf } from './parts/ssr-html';
-import { showNumber } from './parts/show';
+import { formatNumber } from '$lib/format';
 
 const show = (props: Record<string, string>) => render(AmbientDimmer, { props }).body;
 
@@ -14,7 +14,7 @@ function expected(scene: DaylightCondition, under: number, syncSeconds: number, 
 	const isoMark = nearestMarked(iso, 'iso');
 	const n = nearestMarked(apertureFor({ ev100: daylightEv(scene) + under, shutter: sync.value, iso: isoMark.value }), 'aperture');
 	const actual = ev100({ aperture: n.value, shutter: sync.value, iso: isoMark.value }) - daylightEv(scene);
-	return { aperture: formatAperture(n.value), shutter: `${sync.label} s`, under: showNumber(actual, 1), target: daylightEv(scene) + under, iso: isoMark.value, sync };
+	return { aperture: formatAperture(n.value), shutter: `${sync.label} s`, under: formatNumber(actual, 1), target: daylightEv(scene) + under, iso: isoMark.value, sync };
 }
 
 describe('Ambient Dimmer', () => {

@@ -5,7 +5,7 @@ import { ev100, flashStops, hssCost, mix } from '$lib/exposure';
 import ExposureSplit from './ExposureSplit.svelte';
 import { exposureSplit, flashShareOf } from './parts/split';
 import { textOf } from './parts/ssr-html';
-import { showStops } from './parts/show';
+import { formatSigned } from '$lib/format';
 
 const show = (props: Record<string, string> = {}) => render(ExposureSplit, { props }).body;
 const BASE = { scene: '14', aperture: '8', shutter: '1/250', iso: '100', gn: '60', power: '1/4', distance: '3', sync: '1/250' };
@@ -55,8 +55,8 @@ describe('Exposure Split widget', () => {
 		const body = show(BASE);
 		const ambient = 14 - ev100({ aperture: marked.f8, shutter: marked.t250, iso: 100 });
 		const flash = flashStops({ gn: 60, power: 1 / 4, distance: 3, aperture: 8, iso: 100 });
-		expect(textOf(body, 'split-ambient')).toBe(`${showStops(ambient)} stops`);
-		expect(textOf(body, 'split-flash')).toBe(`${showStops(flash)} stops`);
+		expect(textOf(body, 'split-ambient')).toBe(`${formatSigned(ambient)} stops`);
+		expect(textOf(body, 'split-flash')).toBe(`${formatSigned(flash)} stops`);
 		expect(textOf(body, 'split-flash')).toBe('+0.6 stops');
 		expect(textOf(body, 'split-subject')).toBe('+1.4 stops');
 		expect(textOf(body, 'split-share')).toBe('61 %');

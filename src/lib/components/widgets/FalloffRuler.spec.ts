@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { falloffStops, flashAperture, flashDistance, flashStops, formatAperture, guideNumber, nearestMarked } from '$lib/exposure';
 import FalloffRuler from './FalloffRuler.svelte';
 import { attrOf, textOf } from './parts/ssr-html';
-import { showNumber, showStops } from './parts/show';
+import { formatNumber, formatSigned } from '$lib/format';
 
 const show = (props: Record<string, string>) => render(FalloffRuler, { props }).body;
 
@@ -13,11 +13,11 @@ function expected(gn: number, power: number, d: number, iso: number, aperture: n
 	const isoMark = nearestMarked(iso, 'iso').value;
 	const gnNow = guideNumber(gn, { iso: isoMark, power });
 	return {
-		stops: showStops(flashStops({ gn, power, distance: d, aperture: n, iso: isoMark })),
-		gnNow: `${showNumber(gnNow, 1)} m`,
+		stops: formatSigned(flashStops({ gn, power, distance: d, aperture: n, iso: isoMark })),
+		gnNow: `${formatNumber(gnNow, 1)} m`,
 		correct: formatAperture(nearestMarked(flashAperture(gnNow, d), 'aperture').value),
-		reach: `${showNumber(flashDistance(gnNow, n), 1)} m`,
-		stepBack: showStops(-falloffStops(d, d + 1))
+		reach: `${formatNumber(flashDistance(gnNow, n), 1)} m`,
+		stepBack: formatSigned(-falloffStops(d, d + 1))
 	};
 }
 

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { freezeShutter, labelNumber, markedSeries, motionBlurPx } from '$lib/exposure';
 import FreezeMeter from './FreezeMeter.svelte';
 import { textOf } from './parts/ssr-html';
-import { showNumber } from './parts/show';
+import { formatNumber } from '$lib/format';
 
 const show = (props: Record<string, string>) => render(FreezeMeter, { props }).body;
 const runner = { speed: '6', distance: '5', focal: '24', sensor: '36', pixels: '6000' };
@@ -13,7 +13,7 @@ const geometry = { speed: 6, distance: 5, focalLength: 24, sensorWidth: 36, imag
 describe('Freeze Meter', () => {
 	it('a runner at 6 m/s, 5 m, 24 mm on a 36 mm, 6000 px sensor at 1/1000 s', () => {
 		const body = show({ ...runner, shutter: '1/1000' });
-		expect(textOf(body, 'freeze-blur')).toBe(`${showNumber(motionBlurPx({ ...geometry, exposure: 1 / 1000 }), 1)} px`);
+		expect(textOf(body, 'freeze-blur')).toBe(`${formatNumber(motionBlurPx({ ...geometry, exposure: 1 / 1000 }), 1)} px`);
 		// Thin-lens magnification m = f/(d − f) (Gaussian lens equation, from memory): 24/4976 = 0.004823;
 		// 6000 mm/s × 0.004823 = 28.94 mm/s on the sensor × 6000/36 px/mm = 4823 px/s; × 1/1000 s = 4.8 px
 		expect(textOf(body, 'freeze-blur')).toBe('4.8 px');

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { applyGel, mired, renderedSwatch } from '$lib/exposure';
 import GelMixer from './GelMixer.svelte';
 import { elementsByTestId, textOf } from './parts/ssr-html';
-import { showNumber, showStops } from './parts/show';
+import { formatNumber, formatSigned } from '$lib/format';
 
 const show = (props: Record<string, string>) => render(GelMixer, { props }).body;
 const channels = (hex: string) => [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16));
@@ -13,8 +13,8 @@ describe('Gel Mixer', () => {
 	it('daylight flash with a full CTO at 3200 K: warm subject, blue background', () => {
 		const body = show({ ambient: '5600', flash: '5600', gel: 'full-cto', wb: '3200' });
 		const lit = mired(5600) + 159;
-		expect(textOf(body, 'gel-subject-offset')).toContain(`${showStops(lit - mired(3200), 1)} mired from neutral`);
-		expect(textOf(body, 'gel-background-offset')).toContain(`${showStops(mired(5600) - mired(3200), 1)} mired from neutral`);
+		expect(textOf(body, 'gel-subject-offset')).toContain(`${formatSigned(lit - mired(3200), 1)} mired from neutral`);
+		expect(textOf(body, 'gel-background-offset')).toContain(`${formatSigned(mired(5600) - mired(3200), 1)} mired from neutral`);
 		expect(textOf(body, 'gel-subject-hex')).toBe(renderedSwatch({ lightK: applyGel(5600, 'full-cto'), cameraWbK: 3200 }));
 		expect(textOf(body, 'gel-background-hex')).toBe(renderedSwatch({ lightK: 5600, cameraWbK: 3200 }));
 		// Mired = 10^6 / K (definition): 5600 K → 178.6, 3200 K → 312.5; full CTO +159 mired (swatch-book value, common
@@ -40,7 +40,7 @@ describe('Gel Mixer', () => {
 	it('a cooling gel follows the engine', () => {
 		const body = show({ ambient: '3200', flash: '3200', gel: 'half-ctb', wb: '5600' });
 		expect(textOf(body, 'gel-subject-hex')).toBe(renderedSwatch({ lightK: applyGel(3200, 'half-ctb'), cameraWbK: 5600 }));
-		expect(textOf(body, 'gel-flash-mired')).toBe(`1,000,000 / 3200 K = 312.5 \u2212 78 = ${showNumber(312.5 - 78, 1)} mired ≈ ${Math.round(1e6 / 234.5)} K`);
+		expect(textOf(body, 'gel-flash-mired')).toBe(`1,000,000 / 3200 K = 312.5 \u2212 78 = ${formatNumber(312.5 - 78, 1)} mired ≈ ${Math.round(1e6 / 234.5)} K`);
 	});
 
 	it('explains a gel that cannot cool a light any further instead of throwing', () => {

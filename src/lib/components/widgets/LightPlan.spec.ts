@@ -5,7 +5,7 @@ import { angleAtSubject, distance, falloffStops, lightPattern } from '$lib/expos
 import LightPlan from './LightPlan.svelte';
 import { presetLayout, type PlanPreset } from './parts/plan';
 import { attrOf, elementsByTestId, textOf } from './parts/ssr-html';
-import { showNumber, showStops } from './parts/show';
+import { formatNumber, formatSigned } from '$lib/format';
 
 const show = (preset: string) => render(LightPlan, { props: { preset } }).body;
 
@@ -14,11 +14,11 @@ function expectEngineNumbers(body: string, preset: PlanPreset) {
 	const { camera, subject, lights } = presetLayout(preset);
 	const key = lightPattern({ camera, subject, light: lights[0] });
 	expect(textOf(body, 'plan-pattern-angle')).toContain(`${Math.round(key.angleFromFacing)}° from where the subject faces`);
-	expect(textOf(body, 'plan-camera-distance')).toBe(`${showNumber(distance(camera, subject), 2)} m`);
+	expect(textOf(body, 'plan-camera-distance')).toBe(`${formatNumber(distance(camera, subject), 2)} m`);
 	lights.forEach((light, i) => {
-		expect(textOf(body, `plan-light-${i + 1}-distance`)).toBe(`${showNumber(distance(light, subject), 2)} m`);
+		expect(textOf(body, `plan-light-${i + 1}-distance`)).toBe(`${formatNumber(distance(light, subject), 2)} m`);
 		expect(textOf(body, `plan-light-${i + 1}-angle`)).toBe(`${Math.round(angleAtSubject(camera, subject, light))}°`);
-		expect(textOf(body, `plan-light-${i + 1}-stops`)).toBe(showStops(-falloffStops(distance(lights[0], subject), distance(light, subject))));
+		expect(textOf(body, `plan-light-${i + 1}-stops`)).toBe(formatSigned(-falloffStops(distance(lights[0], subject), distance(light, subject))));
 	});
 	expect(elementsByTestId(body, `plan-light-${lights.length + 1}`)).toHaveLength(0);
 	return key;

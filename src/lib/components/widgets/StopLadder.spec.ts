@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { equivalentExposures, ev100, markedSeries } from '$lib/exposure';
 import StopLadder from './StopLadder.svelte';
 import { elementsByTestId, listItems, textOf } from './parts/ssr-html';
-import { showNumber } from './parts/show';
+import { formatNumber } from '$lib/format';
 
 const show = (props: Record<string, string>) => render(StopLadder, { props }).body;
 
@@ -21,7 +21,7 @@ describe('Stop Ladder', () => {
 	it('refers other ISO speeds back to ISO 100, as the engine does', () => {
 		const body = show({ aperture: 'f/5.6', shutter: '1/60', iso: '400' });
 		const engine = ev100({ aperture: 2 ** 2.5, shutter: 2 ** -6, iso: 100 * 2 ** 2 });
-		expect(textOf(body, 'ev100')).toBe(`EV ${showNumber(engine, 1)}`);
+		expect(textOf(body, 'ev100')).toBe(`EV ${formatNumber(engine, 1)}`);
 		// APEX, ASA PH2.5-1960: f/5.6 → Av 5, 1/60 → Tv 6 (marked 2^-6 s); ISO 400 is Sv two stops above ISO 100 → EV100 9
 		expect(textOf(body, 'ev100')).toBe('EV 9.0');
 	});

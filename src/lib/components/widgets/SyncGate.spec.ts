@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { hssCost, nearestMarked } from '$lib/exposure';
 import SyncGate from './SyncGate.svelte';
 import { attrOf, textOf } from './parts/ssr-html';
-import { showNumber, showStops } from './parts/show';
+import { formatNumber, formatSigned } from '$lib/format';
 
 const show = (props: Record<string, string>) => render(SyncGate, { props }).body;
 
@@ -12,7 +12,7 @@ function expected(shutter: number, sync: number) {
 	const t = nearestMarked(shutter, 'shutter').value;
 	const s = nearestMarked(sync, 'shutter').value;
 	const cost = hssCost({ shutter: t, syncSpeed: s });
-	return { cost: showNumber(cost, 1), reach: `×${showNumber(2 ** (-cost / 2), 2)}`, ambient: showStops(Math.log2(t / s)) };
+	return { cost: formatNumber(cost, 1), reach: `×${formatNumber(2 ** (-cost / 2), 2)}`, ambient: formatSigned(Math.log2(t / s)) };
 }
 
 describe('Sync Gate', () => {
@@ -60,17 +60,17 @@ describe('Sync Gate', () => {
 		expect(attrOf(body, 'sync-chart', 'role')).toBe('img');
 		expect(body).toContain('stroke-flash');
 		expect(body).toContain('stroke-ambient');
-		// marker x: Tv 10 on a 5–13 axis drawn from x = 36 to 310 → 36 + 274·5/8 = 207.25
-		expect(Number(attrOf(body, 'sync-chart-marker', 'cx'))).toBeCloseTo(207.25, 2);
+		// marker x: Tv 10 on a 5–13 axis drawn from x = 36 to 298 (room for the last label) → 36 + 262·5/8 = 199.75
+		expect(Number(attrOf(body, 'sync-chart-marker', 'cx'))).toBeCloseTo(199.75, 2);
 	});
 
 	it("takes the learner's own entry cost for their flash", () => {
 		const body = show({ shutter: '1/1000', sync: '1/250', entry: '1.7' });
 		const cost = hssCost({ shutter: nearestMarked(1 / 1000, 'shutter').value, syncSpeed: nearestMarked(1 / 250, 'shutter').value, entryLoss: 1.7 });
-		expect(textOf(body, 'sync-cost')).toBe(showNumber(cost, 1));
+		expect(textOf(body, 'sync-cost')).toBe(formatNumber(cost, 1));
 		// 1.7 stops to enter plus APEX Tv 10 − Tv 8 = 2 stops above sync: 3.7 (the per-stop part is common practice, no published source)
 		expect(textOf(body, 'sync-cost')).toBe('3.7');
-		expect(textOf(body, 'sync-reach')).toBe(`×${showNumber(2 ** (-3.7 / 2), 2)}`);
+		expect(textOf(body, 'sync-reach')).toBe(`×${formatNumber(2 ** (-3.7 / 2), 2)}`);
 		expect(attrOf(body, 'sync-entry', 'value')).toBe('1.7');
 		// an entry cost of zero (a flash that loses nothing to switch) leaves only the per-stop cost
 		expect(textOf(show({ shutter: '1/1000', sync: '1/250', entry: '0' }), 'sync-cost')).toBe('2.0');

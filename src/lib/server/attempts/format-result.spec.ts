@@ -12,7 +12,7 @@ describe('formatting criterion results', () => {
 		// marked shutter and aperture names, as cameras show them
 		expect(formatMeasured({ measured: 1 / 500, unit: 's' })).toBe('1/500 s');
 		expect(formatMeasured({ measured: 5.6, unit: 'f-number' })).toBe('f/5.6');
-		expect(formatMeasured({ measured: 62.4, unit: 'mired' })).toBe('62 mireds');
+		expect(formatMeasured({ measured: 62.4, unit: 'mired' })).toBe('62 mired');
 		expect(formatMeasured({ measured: null, unit: 'ISO' })).toBe('—');
 		expect(formatValue(400, 'ISO')).toBe('ISO 400');
 	});
@@ -52,7 +52,7 @@ describe('exifRows', () => {
 			'Exposure bias': '−0.3 EV',
 			// CIPA DC-008 Flash 0x19: fired, auto mode
 			Flash: 'fired, auto mode',
-			'Focal length': '24 mm (24 mm in 35 mm terms)',
+			'Focal length': '24 mm',
 			'White balance': 'manual',
 			Taken: 'not recorded',
 			Camera: 'Stopwise Test Bench One'

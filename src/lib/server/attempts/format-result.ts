@@ -3,19 +3,18 @@ import { formatAperture, formatShutter } from '../../exposure/index';
 import { describeFlash, type ExifReport } from '../analysis/index';
 import type { CriterionResult } from '../grading/index';
 import { formatOffset, formatStopAmount } from '../grading/format';
+import { formatDecimal, formatFocalLength, formatMired, formatMm, formatStops, roundTo } from '../../format/numbers';
 
-function signed(value: number, digits = 1): string {
-	const rounded = Number(value.toFixed(digits));
-	return `${rounded > 0 ? '+' : rounded < 0 ? '−' : ''}${Math.abs(rounded)}`;
+/** '+1', '−0.7', '0': EV offsets with their sign, one decimal at most. */
+function signed(value: number): string {
+	return roundTo(value, 1) > 0 ? `+${formatDecimal(value)}` : formatDecimal(value);
 }
 
 /** One number in the criterion's unit. */
 export function formatValue(value: number, unit: CriterionResult['unit']): string {
 	switch (unit) {
-		case 'stops': {
-			const r = Math.abs(Number(value.toFixed(1)));
-			return `${value < 0 && r > 0 ? '−' : ''}${r} ${r === 1 ? 'stop' : 'stops'}`;
-		}
+		case 'stops':
+			return formatStops(value);
 		case 'EV':
 			return `${signed(value)} EV`;
 		case 's':
@@ -25,9 +24,9 @@ export function formatValue(value: number, unit: CriterionResult['unit']): strin
 		case 'ISO':
 			return `ISO ${Math.round(value)}`;
 		case 'mm':
-			return `${Number(value.toFixed(value < 10 ? 1 : 0))} mm`;
+			return formatMm(value);
 		case 'mired':
-			return `${Math.round(value)} mireds`;
+			return formatMired(value);
 		case 'flash':
 			return value ? 'fired' : 'not fired';
 		case 'percent':
@@ -84,7 +83,7 @@ export function exifRows(exif: ExifReport): ExifRow[] {
 		{ label: 'ISO', value: or(exif.iso ? String(Math.round(exif.iso)) : null) },
 		{ label: 'Exposure bias', value: or(exif.exposureBias === null ? null : `${signed(exif.exposureBias)} EV`) },
 		{ label: 'Flash', value: or(exif.flash ? describeFlash(exif.flash) : null) },
-		{ label: 'Focal length', value: or(exif.focalLength ? `${Number(exif.focalLength.toFixed(1))} mm${exif.focal35 ? ` (${Math.round(exif.focal35)} mm in 35 mm terms)` : ''}` : null) },
+		{ label: 'Focal length', value: or(exif.focalLength ? formatFocalLength(exif.focalLength, exif.focal35) : null) },
 		{ label: 'White balance', value: or(exif.whiteBalance) },
 		{ label: 'Taken', value: or(exif.dateTimeOriginal?.replace('T', ' ') ?? null) },
 		{ label: 'Camera', value: or([exif.make, exif.model].filter(Boolean).join(' ') || null) }

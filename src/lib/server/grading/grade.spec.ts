@@ -280,10 +280,20 @@ describe('grade', () => {
 });
 
 describe('overallVerdict', () => {
-	it('lets a failed criterion decide; an unknown beside passes goes to a mentor', () => {
+	it('lets a failed criterion decide "not yet"; review is only for what the file cannot tell', () => {
 		expect(overallVerdict(['pass', 'pass'])).toBe('pass');
 		expect(overallVerdict(['pass', 'fail'])).toBe('fail');
 		expect(overallVerdict(['fail', 'unknown'])).toBe('fail');
+		expect(overallVerdict(['unknown', 'pass', 'fail'])).toBe('fail');
 		expect(overallVerdict(['pass', 'unknown'])).toBe('needs-review');
+		expect(overallVerdict(['unknown'])).toBe('needs-review');
+		expect(overallVerdict([])).toBe('pass');
+	});
+
+	it('grades a frame one stop short with no flash record as "not yet", not "with a mentor"', async () => {
+		const result = grade(SPEC, { reference: await reference(), lit: await lit({ exposureTime: 1 / 1000 }, { flash: FLASH_OFF }) });
+		expect(byKind(result.criteria, 'ambient-under').verdict).toBe('fail');
+		expect(byKind(result.criteria, 'flash-evidence').verdict).toBe('unknown');
+		expect(result.verdict).toBe('fail');
 	});
 });

@@ -2,12 +2,13 @@
 import { requireRole } from '$lib/server/guards';
 import { readQueueParams } from '$lib/attempts/queue-params';
 import { fetchReviewQueue, queueFilterOptions } from '$lib/server/review/queue-query';
+import { countWaiting } from '$lib/server/review/waiting';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'mentor');
 	const params = { ...readQueueParams(event.url.searchParams), cursor: '' };
-	const [page, options] = await Promise.all([fetchReviewQueue(params), queueFilterOptions()]);
+	const [page, options, waiting] = await Promise.all([fetchReviewQueue(params), queueFilterOptions(), countWaiting()]);
 	const { cursor: _cursor, ...query } = params;
-	return { query, attempts: page.ok ? page.rows : [], nextCursor: page.ok ? page.nextCursor : null, options };
+	return { query, attempts: page.ok ? page.rows : [], nextCursor: page.ok ? page.nextCursor : null, options, waiting };
 };

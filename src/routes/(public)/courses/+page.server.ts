@@ -3,7 +3,7 @@ import { resumePoints, type ResumePoint } from '$lib/server/progress';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ locals }) => {
-	const [courses, resume] = await Promise.all([listCourses(), locals.user ? resumePoints(locals.user.id) : ({} as Record<string, ResumePoint>)]);
+	const [courses, resume] = await Promise.all([listCourses(), locals.user ? resumePoints(locals.user) : ({} as Record<string, ResumePoint>)]);
 	return {
 		// per course slug: the lesson the signed-in learner opened last
 		resume,

@@ -1,4 +1,4 @@
-// Sign in with e-mail and password; throttled; comes back to ?redirectTo= (same-origin paths only).
+// Sign in with e-mail and password; throttled; comes back to ?redirectTo= (same-origin paths only), else lands where the person works.
 import { fail, redirect } from '@sveltejs/kit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
@@ -6,6 +6,8 @@ import { signInSchema } from '$lib/forms/account';
 import { signInWithPassword, throttledMessage } from '$lib/server/accounts';
 import { startSession } from '$lib/server/auth';
 import { safeRedirectPath } from '$lib/server/guards';
+import { landingPathFor, landingPathForId } from '$lib/server/landing';
+import { signInReason } from '$lib/sign-in-reason';
 import type { Actions, PageServerLoad } from './$types';
 
 const notices: Record<string, string> = {
@@ -14,11 +16,14 @@ const notices: Record<string, string> = {
 	'signed-out': 'You are signed out.'
 };
 
+/** A same-origin path to return to, or '' when there is none (or it points elsewhere). */
+const returnPath = (raw: string | null | undefined) => safeRedirectPath(raw, '');
+
 export const load: PageServerLoad = async ({ locals, url }) => {
-	const redirectTo = safeRedirectPath(url.searchParams.get('redirectTo'));
-	if (locals.user) redirect(303, redirectTo);
+	const redirectTo = returnPath(url.searchParams.get('redirectTo'));
+	if (locals.user) redirect(303, redirectTo || (await landingPathFor(locals.user)));
 	const form = await superValidate({ redirectTo }, zod4(signInSchema), { errors: false });
-	return { form, notice: notices[url.searchParams.get('notice') ?? ''] ?? null };
+	return { form, notice: notices[url.searchParams.get('notice') ?? ''] ?? null, reason: signInReason(redirectTo), redirectTo };
 };
 
 export const actions = {
@@ -33,6 +38,6 @@ export const actions = {
 		}
 		if (!result.ok) return message(form, 'That e-mail address and password do not match an account.', { status: 400 });
 		await startSession(cookies, result.userId, locals.session?.id);
-		redirect(303, safeRedirectPath(redirectTo));
+		redirect(303, returnPath(redirectTo) || (await landingPathForId(result.userId)));
 	}
 } satisfies Actions;

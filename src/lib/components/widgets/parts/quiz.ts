@@ -1,6 +1,6 @@
 // Quiz logic: reading a question's attributes, checking an answer, and saving it for a signed-in learner.
 import { readNumberText, type RawAttr } from './attrs';
-import { showNumber } from './show';
+import { formatNumber } from '$lib/format';
 
 /** A checkable question: a number within a tolerance, or one right choice (1-based) among several. */
 export type QuizSpec =
@@ -51,8 +51,8 @@ export function checkAnswer(spec: QuizSpec, given: number): QuizCheck {
 	// A hair of slack so 0.1 + 0.2 style float error never fails a learner sitting exactly on the edge.
 	const correct = Math.abs(given - spec.answer) <= spec.tolerance + 1e-9;
 	const unit = spec.unit ? ` ${spec.unit}` : '';
-	const shown = showNumber(spec.answer, decimals(spec.answer));
-	const within = spec.tolerance > 0 ? ` (anything within ±${showNumber(spec.tolerance, decimals(spec.tolerance))} counts)` : '';
+	const shown = formatNumber(spec.answer, decimals(spec.answer));
+	const within = spec.tolerance > 0 ? ` (anything within ±${formatNumber(spec.tolerance, decimals(spec.tolerance))} counts)` : '';
 	return { correct, explanation: `${correct ? 'Right' : 'Not quite'}: the answer is ${shown}${unit}${within}.` };
 }
 

@@ -25,7 +25,7 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 		enrolment: await readEnrolmentState(locals.user, course.id),
 		notice: readCourseNotice(url.searchParams, modules),
 		// a signed-in learner's completed lessons (by slug) and where they left off
-		progress: locals.user ? await courseProgress(locals.user.id, course.id) : null
+		progress: locals.user ? await courseProgress(locals.user, course.id) : null
 	};
 };
 

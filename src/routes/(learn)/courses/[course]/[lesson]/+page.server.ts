@@ -5,6 +5,7 @@ import { setLessonComplete, visitLesson } from '$lib/server/progress';
 import { hasCourseAccess, requireCourseAccess } from '$lib/server/enrolment-access';
 import { requireUser, signInPath } from '$lib/server/guards';
 import { lessonAssignmentCards } from '$lib/server/attempts/history';
+import { lessonNeighbours } from '$lib/server/lesson-neighbours';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals, url }) => {
@@ -16,10 +17,11 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 		redirect(303, locals.user ? `/courses/${course.slug}?locked=${encodeURIComponent(lesson.slug)}` : signInPath(url));
 	}
 	// every lesson is rendered here, files too: a client-side import would put paid text in public bundles
-	const [rendered, visit, assignmentCards] = await Promise.all([
+	const [rendered, visit, assignmentCards, neighbours] = await Promise.all([
 		renderPublishedLesson(lesson),
 		locals.user ? visitLesson(locals.user.id, lesson.id) : null,
-		lessonAssignmentCards(locals.user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found.assignments)
+		lessonAssignmentCards(locals.user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found.assignments),
+		lessonNeighbours(course.id, lesson.id)
 	]);
 	if (!rendered) error(404, { message: 'This lesson has no text yet.' });
 	return {
@@ -35,7 +37,8 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 		segments: rendered.segments,
 		progress: visit ? { completed: visit.completed } : null,
 		quizAnswers: visit?.quizAnswers ?? {},
-		assignments: assignmentCards
+		assignments: assignmentCards,
+		neighbours
 	};
 };
 

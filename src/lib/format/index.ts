@@ -1,0 +1,3 @@
+// Every number a learner reads goes through here: money, stops, EV, mireds, kelvin, lengths (browser-safe, no imports).
+export * from './money';
+export * from './numbers';
