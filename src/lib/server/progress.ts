@@ -71,7 +71,7 @@ function openToLearner(user: Learner): SQL | undefined {
 }
 
 /** The lessons of a course the learner completed (by slug) and the published lesson they opened last, if they may open it. */
-export async function courseProgress(user: Learner, courseId: number): Promise<{ completed: string[]; resume: ResumePoint | null }> {
+export async function courseProgress(user: Learner, courseId: number): Promise<{ started: boolean; completed: string[]; resume: ResumePoint | null }> {
 	const rows = await db
 		.select({ slug: lessons.slug, title: lessons.title, completedAt: lessonProgress.completedAt, courseSlug: courses.slug, open: sql<boolean>`${openToLearner(user) ?? sql`true`}` })
 		.from(lessonProgress)
@@ -82,6 +82,7 @@ export async function courseProgress(user: Learner, courseId: number): Promise<{
 		.orderBy(desc(lessonProgress.lastVisitedAt));
 	const last = rows.find((r) => r.open);
 	return {
+		started: rows.length > 0,
 		completed: rows.filter((r) => r.completedAt !== null).map((r) => r.slug),
 		resume: last ? { courseSlug: last.courseSlug, lessonSlug: last.slug, lessonTitle: last.title } : null
 	};

@@ -1,7 +1,7 @@
 // How close a learner's attempts came to the targets over time: each criterion's miss in stops, per attempt.
-import { asc, eq } from 'drizzle-orm';
+import { asc, eq, sql } from 'drizzle-orm';
 import { db } from '../db/index';
-import { assignments, attempts, type AttemptVerdict } from '../db/schema';
+import { assignments, attempts, courses, lessons, modules, type AttemptVerdict } from '../db/schema';
 import type { CriterionResult } from '../grading/index';
 import type { StoredResult } from './grade-job';
 
@@ -58,6 +58,11 @@ export interface ProgressPoint {
 	id: string;
 	at: string;
 	assignment: string;
+	assignmentSlug: string;
+	/** the Assignment's page, where the learner sends another Attempt */
+	assignmentHref: string;
+	/** 1 for the learner's first Attempt at this Assignment, counting every Attempt sent */
+	number: number;
 	verdict: AttemptVerdict | null;
 	/** the largest miss of the ambient criteria and of the flash criteria, in stops */
 	ambientMiss: number | null;
@@ -81,9 +86,23 @@ export function summariseResult(criteria: readonly CriterionResult[]): Pick<Prog
 /** Every graded attempt of the learner, oldest first. */
 export async function loadProgress(userId: string): Promise<ProgressPoint[]> {
 	const rows = await db
-		.select({ id: attempts.id, gradedAt: attempts.gradedAt, verdict: attempts.verdict, result: attempts.result, assignment: assignments.title })
+		.select({
+			id: attempts.id,
+			gradedAt: attempts.gradedAt,
+			verdict: attempts.verdict,
+			result: attempts.result,
+			assignment: assignments.title,
+			assignmentSlug: assignments.slug,
+			lessonSlug: lessons.slug,
+			courseSlug: courses.slug,
+			// numbered before ungraded Attempts are left out, so "Attempt 3" matches the Assignment page's count
+			number: sql<number>`row_number() over (partition by ${attempts.assignmentId} order by ${attempts.createdAt}, ${attempts.id})`.mapWith(Number)
+		})
 		.from(attempts)
 		.innerJoin(assignments, eq(attempts.assignmentId, assignments.id))
+		.innerJoin(lessons, eq(assignments.lessonId, lessons.id))
+		.innerJoin(modules, eq(lessons.moduleId, modules.id))
+		.innerJoin(courses, eq(modules.courseId, courses.id))
 		.where(eq(attempts.userId, userId))
 		.orderBy(asc(attempts.createdAt))
 		.limit(500);
@@ -93,6 +112,9 @@ export async function loadProgress(userId: string): Promise<ProgressPoint[]> {
 			id: r.id,
 			at: r.gradedAt!.toISOString(),
 			assignment: r.assignment,
+			assignmentSlug: r.assignmentSlug,
+			assignmentHref: `/courses/${r.courseSlug}/${r.lessonSlug}/assignments/${r.assignmentSlug}`,
+			number: r.number,
 			verdict: r.verdict,
 			...summariseResult((r.result as StoredResult).criteria)
 		}));

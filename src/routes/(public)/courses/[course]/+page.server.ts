@@ -5,12 +5,18 @@ import { startCheckout } from '$lib/server/payments/checkout';
 import { requireUser } from '$lib/server/guards';
 import { courseProgress } from '$lib/server/progress';
 import { instructorForCourse } from '$lib/server/instructors';
+import { courseGuide } from '$lib/server/course-guide';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals, url }) => {
 	const outline = await getCourseOutline(params.course);
 	if (!outline) error(404, { message: 'There is no such course.' });
 	const { course, modules } = outline;
+	const [enrolment, progress, guide] = await Promise.all([
+		readEnrolmentState(locals.user, course.id),
+		locals.user ? courseProgress(locals.user, course.id) : null,
+		courseGuide(course.id)
+	]);
 	return {
 		course: {
 			slug: course.slug,
@@ -22,10 +28,13 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 		},
 		modules,
 		instructorSlug: instructorForCourse(course.slug)?.slug ?? null,
-		enrolment: await readEnrolmentState(locals.user, course.id),
+		enrolment,
 		notice: readCourseNotice(url.searchParams, modules),
 		// a signed-in learner's completed lessons (by slug) and where they left off
-		progress: locals.user ? await courseProgress(locals.user, course.id) : null
+		progress,
+		guide,
+		// the guide opens by itself until the visitor has opened a lesson of the course
+		firstVisit: !progress?.started
 	};
 };
 
