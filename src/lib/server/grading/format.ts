@@ -1,7 +1,7 @@
 // The grader's words for numbers, all from the one shared formatter (src/lib/format) so verdicts read like widgets.
 import { formatFraction, formatStops as formatStopsShared, MINUS } from '../../format/numbers';
 
-export { formatKelvin, formatMired, formatMm, formatFocalLength } from '../../format/numbers';
+export { formatDecimal, formatKelvin, formatMired, formatMm, formatFocalLength } from '../../format/numbers';
 
 /** 2 → '2', 0.34 → '⅓', 1.5 → '1½', 0.4 → '0.4': for targets and tolerances an author typed. */
 export const formatAmount = formatFraction;

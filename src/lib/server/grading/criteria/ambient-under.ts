@@ -1,6 +1,6 @@
 // ambient-under: how far the lit frame's settings sit under the metered ambient (reference frame or a given scene EV).
 import { ev100, meteredEv } from '../../../exposure/index';
-import { formatStops, formatTarget } from '../format';
+import { formatDecimal, formatStops, formatTarget } from '../format';
 import { adviseExposure } from '../messages';
 import { frameWords, isResult, lookupFrame, requireExif, type CriterionResult, type GradeContext } from '../result';
 import { resolveFrames, type Criterion } from '../spec';
@@ -30,7 +30,7 @@ export function gradeAmbientUnder(c: AmbientUnder, ctx: GradeContext): Criterion
 	if (refName === null) {
 		// the schema guarantees a scene EV when there is no reference frame
 		ambientEv = sceneEv ?? 0;
-		against = `the scene’s ambient reading (EV ${Number(ambientEv.toFixed(1))} at ISO 100)`;
+		against = `the scene’s ambient reading (EV ${formatDecimal(ambientEv)} at ISO 100)`;
 	} else {
 		const ref = lookupFrame(ctx, refName, base);
 		if (isResult(ref)) return ref;

@@ -5,7 +5,7 @@
 // That is the gel's work, whatever the white balance. Without one, the background must render bluer than neutral and
 // than the subject (the low-Kelvin white balance's work), with the Exif WhiteBalance mode as supporting evidence.
 import { mired } from '../../../exposure/index';
-import { formatKelvin, formatMired } from '../format';
+import { formatKelvin, formatMired, formatStops } from '../format';
 import { miredOf } from '../pair/index';
 import { isResult, judge, lookupFrame, requirePair, requirePixels, type CriterionResult, type GradeContext, type ResultBase } from '../result';
 import { resolveFrames, type Criterion } from '../spec';
@@ -61,7 +61,7 @@ export function gradeBackgroundCooler(c: BackgroundCooler, ctx: GradeContext): C
 			verdict: 'fail',
 			measured: 0,
 			missing: [],
-			message: `The flash added only ${pair.lift.toFixed(1)} stops to the subject, so the light on the subject is the same daylight as on the background: no colour contrast between them. ${fix(c, 0, auto)}`
+			message: `The flash added only ${formatStops(pair.lift)} to the subject, so the light on the subject is the same daylight as on the background: no colour contrast between them. ${fix(c, 0, auto)}`
 		};
 	}
 	if (pair.warmerMired === null) {

@@ -23,7 +23,7 @@ describe('sync', () => {
 		const result = grade(spec({}), { lit: above }).criteria[0];
 		expect(result.verdict).toBe('fail');
 		// hssCost: 1 stop to enter + log2((1/250)/(1/1000)) = 2 → 3 stops (common practice, no published source)
-		expect(result.message).toContain('loses about 3.0 stops');
+		expect(result.message).toContain('loses about 3 stops');
 		// the same EV at 1/250 s: two stops less light from the aperture, f/4 → f/8 (APEX, ASA PH2.5-1960)
 		expect(result.message).toContain('close down to about f/8');
 	});

@@ -1,5 +1,6 @@
 // sync: the shutter within the camera's flash sync speed, unless the assignment allows high-speed sync (whose cost it states).
 import { apertureFor, ev100, formatShutter, hssCost, nearestMarked } from '../../../exposure/index';
+import { formatStops } from '../format';
 import { syncSpeedOf } from '../messages';
 import { isResult, lookupFrame, requireExif, type CriterionResult, type GradeContext } from '../result';
 import { resolveFrames, type Criterion } from '../spec';
@@ -23,7 +24,7 @@ export function gradeSync(c: Sync, ctx: GradeContext): CriterionResult {
 	if (within) return { ...base, verdict: 'pass', measured: t, missing: [], message: `${found} The whole frame sees the flash at full power.` };
 	// high-speed sync pulses the flash: about a stop to enter it and a stop per doubling of shutter speed
 	const cost = hssCost({ shutter: t, syncSpeed: sync });
-	const costWords = `in high-speed sync your flash loses about ${cost.toFixed(1)} stops of power at this shutter`;
+	const costWords = `in high-speed sync your flash loses about ${formatStops(cost)} of power at this shutter`;
 	if (c.highSpeedSync) return { ...base, verdict: 'pass', measured: t, missing: [], message: `${found} This assignment allows high-speed sync: ${costWords}, so keep the flash close.` };
 	// the same ambient at sync: close the aperture by the shutter's stops above sync (APEX: EV fixed)
 	const { fNumber, iso } = frame.exif;
