@@ -3,7 +3,7 @@ import { createHash } from 'node:crypto';
 import { ApiError, noSuch } from './errors.mjs';
 import { parseForm, readExpand, rejectUnknownKeys } from './form.mjs';
 import { createId } from './ids.mjs';
-import { createSession } from './checkout.mjs';
+import { createSession, expireSession } from './checkout.mjs';
 import { createRefund } from './refunds.mjs';
 import { expandObject, listLineItems } from './expand.mjs';
 import { readBody, sendJsonText } from './http.mjs';
@@ -93,6 +93,11 @@ function headerValue(value) {
 function route({ method, path, params, request }, ctx) {
 	if (method === 'POST' && path === '/v1/checkout/sessions') {
 		const session = createSession(ctx, params, ctx.publicUrl);
+		return expandObject(session, readExpand(params.expand), ctx.store);
+	}
+	const expire = /^\/v1\/checkout\/sessions\/([^/]+)\/expire$/.exec(path);
+	if (method === 'POST' && expire) {
+		const session = expireSession(ctx, decodeURIComponent(expire[1]), params);
 		return expandObject(session, readExpand(params.expand), ctx.store);
 	}
 	if (method === 'POST' && path === '/v1/refunds') {

@@ -174,6 +174,26 @@ export function completeSession(ctx, session, card) {
 }
 
 /**
+ * Closes an open session so it can no longer be paid, and records checkout.session.expired; a session that is
+ * complete or already expired is refused, as the real API does (message from memory of its wording).
+ * @param {import('./events.mjs').EventContext} ctx
+ * @param {string} id
+ * @param {Record<string, any>} params
+ */
+export function expireSession(ctx, id, params) {
+	rejectUnknownKeys(params, ['expand']);
+	const session = ctx.store.sessions.get(id);
+	if (!session) throw new ApiError(404, `No such checkout.session: '${id}'`, { param: 'session', code: 'resource_missing' });
+	if (session.status !== 'open') {
+		throw new ApiError(400, `Only Checkout Sessions with a status of open can be expired. This session has a status of ${session.status}.`, { code: 'checkout_session_not_open' });
+	}
+	Object.assign(session, { status: 'expired', url: null });
+	ctx.store.save();
+	recordEvent(ctx, 'checkout.session.expired', session);
+	return session;
+}
+
+/**
  * The success URL with the literal {CHECKOUT_SESSION_ID} replaced, as the real service does (an encoded %7B…%7D is left alone).
  * @param {Record<string, any>} session
  */

@@ -28,6 +28,7 @@ button[value="pay"] { background: #333; color: #fff; }
 export async function handlePayPage(req, res, ctx, sessionId) {
 	const session = ctx.store.sessions.get(sessionId);
 	if (!session) return sendHtml(res, 404, page('Payment not found', '<p>There is no payment session with this address.</p>'));
+	if (session.status === 'expired') return sendHtml(res, 410, page('Payment closed', '<p>This payment session has expired; nothing was charged. Go back to the shop to start again.</p>'));
 	if (req.method === 'GET') {
 		if (session.status === 'complete') return sendHtml(res, 200, completePage(session));
 		return sendHtml(res, 200, payForm(ctx, session, { card: '', error: null }));

@@ -44,3 +44,21 @@ export async function sendLetter(letter: Letter): Promise<SendResult> {
 		return { ok: false, reason: 'We could not send the e-mail just now.' };
 	}
 }
+
+const pending = new Set<Promise<unknown>>();
+
+/**
+ * Mail sent after the answer (receipts, sign-up notices): the page or the provider does not wait for it, but it is
+ * tracked, so tests can wait until every such mail has gone instead of guessing with a sleep.
+ */
+export function sendInBackground(what: string, work: () => Promise<unknown>): void {
+	const task: Promise<unknown> = work()
+		.catch((e: unknown) => console.error(`[mail] ${what} failed`, e instanceof Error ? e.message : e))
+		.finally(() => pending.delete(task));
+	pending.add(task);
+}
+
+/** Resolves once no background mail is in flight (including mail queued while waiting). */
+export async function backgroundMailDrained(): Promise<void> {
+	while (pending.size) await Promise.allSettled([...pending]);
+}

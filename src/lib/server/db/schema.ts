@@ -369,9 +369,12 @@ export const enrolments = pgTable(
 			.references(() => courses.id, { onDelete: 'cascade' }),
 		status: text('status', { enum: ['active', 'revoked'] }).notNull().default('active'),
 		source: text('source', { enum: ['payment', 'admin', 'free'] }).notNull(),
+		/** the latest payment that opened or kept access; every payment stays in `payments` by learner and course */
 		paymentId: integer('payment_id'),
 		/** the coupon that made a course free (paid enrolments keep theirs on the payment) */
 		couponCode: text('coupon_code'),
+		/** set while an admin's grant (or a free enrolment) holds access open: no refund takes that away */
+		grantedAt: timestamp('granted_at', { withTimezone: true }),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 		revokedAt: timestamp('revoked_at', { withTimezone: true })
 	},
@@ -413,7 +416,9 @@ export const webhookEvents = pgTable('webhook_events', {
 	type: text('type').notNull(),
 	payload: jsonb('payload').notNull(),
 	receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
-	processedAt: timestamp('processed_at', { withTimezone: true })
+	processedAt: timestamp('processed_at', { withTimezone: true }),
+	/** why a correctly signed event could not be used (acknowledged, so the provider stops retrying it) */
+	rejectedReason: text('rejected_reason')
 });
 export type WebhookEvent = typeof webhookEvents.$inferSelect;
 

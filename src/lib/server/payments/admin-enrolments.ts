@@ -86,7 +86,8 @@ export async function setEnrolmentStatus(actor: Actor, enrolmentId: number, stat
 	return db.transaction(async (tx) => {
 		const rows = await tx
 			.update(enrolments)
-			.set(status === 'revoked' ? { status, revokedAt: sql`now()` } : { status, revokedAt: null })
+			// restoring by hand is a grant (no refund closes it); revoking by hand withdraws any grant
+			.set(status === 'revoked' ? { status, revokedAt: sql`now()`, grantedAt: null } : { status, revokedAt: null, grantedAt: sql`now()` })
 			.where(eq(enrolments.id, enrolmentId))
 			.returning({ id: enrolments.id, userId: enrolments.userId, courseId: enrolments.courseId });
 		if (!rows[0]) return { ok: false, message: 'That enrolment does not exist.' } as const;

@@ -3,6 +3,7 @@ import { and, count, desc, eq, gte, ilike, lt, type SQL } from 'drizzle-orm';
 import { z } from 'zod';
 import { db } from '../db';
 import { courses, paymentStatuses, payments, users } from '../db/schema';
+import { isEnrolled } from './enrolments';
 import { mailSettlement } from './receipts';
 import { settleChargeRefunded, type Settled } from './settle';
 import { getStripe, isStripeError, type Stripe } from './stripe';
@@ -113,6 +114,9 @@ export async function refundPayment(paymentId: number, origin: string): Promise<
 	const settled = await applyRefundedCharge(stripe, payment.paymentIntentId);
 	mailSettlement(settled, origin);
 	if (settled.change === 'refunded') {
+		if (await isEnrolled(db, payment.userId, payment.courseId)) {
+			return { ok: true, message: 'Refunded. The learner keeps access: another payment or a grant still covers this course. They get an e-mail.' };
+		}
 		return { ok: true, message: 'Refunded. The learner no longer has access to the members-only lessons and gets an e-mail.' };
 	}
 	return { ok: true, message: 'Refund sent. Access closes when the payment service confirms it, usually within seconds.' };

@@ -1,12 +1,16 @@
 // Starting an enrolment: price (with a coupon), then a Checkout Session at the provider and a pending payment row.
-import { and, desc, eq, gt, sql } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import type { AuthUser } from '../auth';
 import { db } from '../db';
 import { courses, payments, type Course } from '../db/schema';
 import { discountedCents, findCoupon } from './coupons';
 import { settleRetrievedSession } from './confirm';
-import { activateEnrolment, isEnrolled } from './enrolments';
-import { getStripe, isStripeError } from './stripe';
+import { activateEnrolment, isEnrolled, type Tx } from './enrolments';
+import { settleSessionExpired } from './settle';
+import { getStripe, isStripeError, type Stripe } from './stripe';
+import { couponThrottleKeysFor, recordFailure, secondsUntilUnlocked } from '../throttle';
+
+const waitText = (seconds: number) => (seconds < 90 ? `${seconds} seconds` : `${Math.ceil(seconds / 60)} minutes`);
 
 export type CheckoutStart =
 	| { kind: 'redirect'; url: string }
@@ -15,15 +19,22 @@ export type CheckoutStart =
 
 const unreachable = 'We could not reach the payment service just now. Nothing was charged; please try again in a minute.';
 
-export async function startCheckout(user: AuthUser, courseSlug: string, couponTyped: string, origin: string): Promise<CheckoutStart> {
+/** `address`: the client's address, for throttling coupon guesses beside the learner's own count. */
+export async function startCheckout(user: AuthUser, courseSlug: string, couponTyped: string, origin: string, address = 'unknown'): Promise<CheckoutStart> {
 	const course = await db.query.courses.findFirst({ where: and(eq(courses.slug, courseSlug), eq(courses.published, true)) });
 	if (!course) return { kind: 'refused', status: 404, message: 'There is no such course.' };
 	if (await isEnrolled(db, user.id, course.id)) return { kind: 'enrolled', already: true };
 
 	let coupon: { code: string; percentOff: number } | null = null;
 	if (couponTyped.trim()) {
+		const keys = couponThrottleKeysFor(user.id, address);
+		const wait = await secondsUntilUnlocked(keys);
+		if (wait > 0) return { kind: 'refused', status: 429, message: `Too many coupon codes tried. Wait ${waitText(wait)} and try again, or enrol without one.` };
 		const found = await findCoupon(couponTyped);
-		if (!found.ok) return { kind: 'refused', status: 400, message: found.message };
+		if (!found.ok) {
+			await recordFailure(keys);
+			return { kind: 'refused', status: 400, message: found.message };
+		}
 		coupon = found;
 	}
 	const amount = discountedCents(course.priceCents, coupon?.percentOff ?? 0);
@@ -38,25 +49,28 @@ export async function startCheckout(user: AuthUser, courseSlug: string, couponTy
 		console.error('[payments] STRIPE_SECRET_KEY is not set: enrolment cannot start a checkout');
 		return { kind: 'refused', status: 503, message: 'Payments are not set up on this server yet. Please try again later.' };
 	}
-	const earlier = await reuseEarlierSession(user.id, course.id, amount, coupon?.code ?? null, origin);
-	if (earlier) return earlier;
-
-	try {
-		const session = await stripe.checkout.sessions.create(sessionParams(user, course, amount, coupon, origin));
-		if (!session.url) throw new Error(`session ${session.id} came back without a payment page URL`);
-		await db.insert(payments).values({
-			userId: user.id,
-			courseId: course.id,
-			checkoutSessionId: session.id,
-			amountCents: amount,
-			currency: course.currency,
-			couponCode: coupon?.code ?? null
-		});
-		return { kind: 'redirect', url: session.url };
-	} catch (e) {
-		console.error('[payments] could not start a checkout', isStripeError(e) ? `${e.type} ${e.statusCode}: ${e.message}` : e);
-		return { kind: 'refused', status: 502, message: unreachable };
-	}
+	// one checkout at a time per learner and course: a double click or a second tab waits for the first
+	return db.transaction(async (tx) => {
+		await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`stopwise-checkout:${user.id}:${course.id}`}))`);
+		const earlier = await settleEarlierSessions(tx, stripe, user.id, course.id, amount, coupon?.code ?? null, origin);
+		if (earlier) return earlier;
+		try {
+			const session = await stripe.checkout.sessions.create(sessionParams(user, course, amount, coupon, origin));
+			if (!session.url) throw new Error(`session ${session.id} came back without a payment page URL`);
+			await tx.insert(payments).values({
+				userId: user.id,
+				courseId: course.id,
+				checkoutSessionId: session.id,
+				amountCents: amount,
+				currency: course.currency,
+				couponCode: coupon?.code ?? null
+			});
+			return { kind: 'redirect', url: session.url } as const;
+		} catch (e) {
+			console.error('[payments] could not start a checkout', isStripeError(e) ? `${e.type} ${e.statusCode}: ${e.message}` : e);
+			return { kind: 'refused', status: 502, message: unreachable } as const;
+		}
+	});
 }
 
 function sessionParams(user: AuthUser, course: Course, amount: number, coupon: { code: string; percentOff: number } | null, origin: string) {
@@ -77,42 +91,56 @@ function sessionParams(user: AuthUser, course: Course, amount: number, coupon: {
 }
 
 /**
- * A second click on Enrol (or coming back after a declined card) goes to the session already open for the same
- * price, so one learner does not collect several payable sessions for one course; a session that was paid while
- * its webhook is still on the way is settled here instead of being charged twice.
+ * At most one payable session per learner and course. A second click on Enrol (or coming back after a declined
+ * card) goes to the session already open for the same price and coupon; an open session for another price (the
+ * learner added or dropped a coupon) is expired at the provider first, so two payments cannot both go through;
+ * a session that was paid while its webhook is still on the way is settled here instead of being charged twice.
  */
-async function reuseEarlierSession(
+async function settleEarlierSessions(
+	tx: Tx,
+	stripe: Stripe,
 	userId: string,
 	courseId: number,
 	amount: number,
 	coupon: string | null,
 	origin: string
 ): Promise<CheckoutStart | null> {
-	const [candidate] = await db
-		.select({ sessionId: payments.checkoutSessionId, coupon: payments.couponCode })
+	const pending = await tx
+		.select({ sessionId: payments.checkoutSessionId, coupon: payments.couponCode, amount: payments.amountCents })
 		.from(payments)
-		.where(
-			and(
-				eq(payments.userId, userId),
-				eq(payments.courseId, courseId),
-				eq(payments.status, 'pending'),
-				eq(payments.amountCents, amount),
-				gt(payments.createdAt, sql`now() - interval '12 hours'`)
-			)
-		)
-		.orderBy(desc(payments.createdAt))
-		.limit(1);
-	if (!candidate || candidate.coupon !== coupon) return null;
+		.where(and(eq(payments.userId, userId), eq(payments.courseId, courseId), eq(payments.status, 'pending')))
+		.orderBy(desc(payments.createdAt), desc(payments.id));
+	let reuse: string | null = null;
 	try {
-		const session = await getStripe()!.checkout.sessions.retrieve(candidate.sessionId);
-		if (session.payment_status === 'paid') {
-			await settleRetrievedSession(session, origin);
-			return (await isEnrolled(db, userId, courseId)) ? { kind: 'enrolled', already: true } : null;
+		for (const row of pending) {
+			let session: Stripe.Checkout.Session = await stripe.checkout.sessions.retrieve(row.sessionId);
+			const same = row.amount === amount && row.coupon === coupon;
+			if (session.status === 'open' && !(same && reuse === null && session.url)) {
+				session = await expireOrRead(stripe, row.sessionId);
+			}
+			if (session.payment_status === 'paid') {
+				await settleRetrievedSession(session, origin);
+				if (await isEnrolled(db, userId, courseId)) return { kind: 'enrolled', already: true };
+			} else if (session.status === 'expired') {
+				await settleSessionExpired(tx, session);
+			} else if (session.status === 'open' && session.url) {
+				reuse = session.url;
+			}
 		}
-		return session.status === 'open' && session.url ? { kind: 'redirect', url: session.url } : null;
 	} catch (e) {
-		// cannot tell: start a fresh session rather than fail the learner
-		console.error('[payments] could not check an earlier session', e instanceof Error ? e.message : e);
-		return null;
+		// an earlier session might still be payable: opening another could take the money twice
+		console.error('[payments] could not check an earlier session', isStripeError(e) ? `${e.type} ${e.statusCode}: ${e.message}` : e);
+		return { kind: 'refused', status: 502, message: unreachable };
+	}
+	return reuse ? { kind: 'redirect', url: reuse } : null;
+}
+
+/** Expires an open session; if it was paid or closed meanwhile, the provider refuses and its current state is read. */
+async function expireOrRead(stripe: Stripe, sessionId: string): Promise<Stripe.Checkout.Session> {
+	try {
+		return await stripe.checkout.sessions.expire(sessionId);
+	} catch (e) {
+		if (isStripeError(e) && e.statusCode === 400) return stripe.checkout.sessions.retrieve(sessionId);
+		throw e;
 	}
 }

@@ -3,9 +3,10 @@ import { eq } from 'drizzle-orm';
 import { formatPrice } from '../../format';
 import { db } from '../db';
 import { courses, payments, users } from '../db/schema';
-import { sendLetter } from '../mail';
+import { sendInBackground, sendLetter } from '../mail';
 import { receiptLetter, refundLetter } from '../mail-letters';
 import type { Settled } from './settle';
+import { isEnrolled } from './enrolments';
 
 const dateFormat = new Intl.DateTimeFormat('en', { dateStyle: 'long', timeStyle: 'short', timeZone: 'UTC' });
 
@@ -46,10 +47,11 @@ export async function notifySettled(settled: Settled, origin: string): Promise<v
 		return;
 	}
 	const refunded = payment.refundedCents || payment.amountCents;
-	await sendLetter(refundLetter(facts.email, facts.name, { course: facts.course, amount: formatPrice(refunded, payment.currency), reference, href }));
+	const accessKept = await isEnrolled(db, payment.userId, payment.courseId);
+	await sendLetter(refundLetter(facts.email, facts.name, { course: facts.course, amount: formatPrice(refunded, payment.currency), reference, href, accessKept }));
 }
 
 /** The same, without making the caller wait: a slow mail server must not hold up a page or the provider's webhook. */
 export function mailSettlement(settled: Settled, origin: string): void {
-	void notifySettled(settled, origin).catch((e: unknown) => console.error('[payments] notification failed', e instanceof Error ? e.message : e));
+	sendInBackground('payment notification', () => notifySettled(settled, origin));
 }

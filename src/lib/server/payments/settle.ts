@@ -2,7 +2,7 @@
 import { and, eq, sql } from 'drizzle-orm';
 import type Stripe from 'stripe';
 import { courses, payments, users, webhookEvents, type Payment } from '../db/schema';
-import { activateEnrolment, revokeEnrolmentOfPayment, type Tx } from './enrolments';
+import { activateEnrolment, lockEnrolment, revokeUnlessStillPaid, type Tx } from './enrolments';
 
 export type SessionFacts = Pick<
 	Stripe.Checkout.Session,
@@ -36,6 +36,7 @@ export async function settleSessionPaid(tx: Tx, session: SessionFacts): Promise<
 	const payment = (await findBySession(tx, session.id)) ?? (await adoptSession(tx, session));
 	if (!payment) return { change: 'none', reason: 'session names no known learner and course' };
 	if (payment.status === 'paid' || payment.status === 'refunded') return { change: 'none', reason: `already ${payment.status}` };
+	await lockEnrolment(tx, payment.userId, payment.courseId);
 
 	const early = intent ? await refundsSeenFor(tx, intent) : { cents: 0, full: false };
 	const amount = session.amount_total ?? payment.amountCents;
@@ -68,11 +69,13 @@ export async function settleChargeRefunded(tx: Tx, charge: ChargeFacts): Promise
 	const refundedCents = Math.max(payment.refundedCents, charge.amount_refunded);
 	const full = charge.refunded || refundedCents >= payment.amountCents;
 	if (full && payment.status !== 'refunded') {
+		await lockEnrolment(tx, payment.userId, payment.courseId);
 		await tx
 			.update(payments)
 			.set({ status: 'refunded', refundedCents, refundedAt: sql`now()` })
 			.where(eq(payments.id, payment.id));
-		await revokeEnrolmentOfPayment(tx, payment.id);
+		// another paid payment for the same course (or an admin's grant) keeps the learner's access
+		await revokeUnlessStillPaid(tx, payment);
 		return { change: 'refunded', paymentId: payment.id };
 	}
 	if (refundedCents !== payment.refundedCents) {

@@ -3,12 +3,16 @@ import { eq, sql } from 'drizzle-orm';
 import type Stripe from 'stripe';
 import { db } from '../db';
 import { webhookEvents } from '../db/schema';
-import { readStripeSettings, webhooks } from './stripe';
+import { readStripeSettings } from './stripe';
+import { checkDelivery, type CheckedDelivery } from './webhook-event';
 import { settleChargeRefunded, settleSessionExpired, settleSessionPaid, type Settled } from './settle';
 import { mailSettlement } from './receipts';
 import type { Tx } from './enrolments';
 
-export type WebhookReply = { status: number; body: { received: boolean; error?: string; message?: string; duplicate?: boolean } };
+export type WebhookReply = {
+	status: number;
+	body: { received: boolean; error?: string; message?: string; duplicate?: boolean; rejected?: boolean };
+};
 
 /**
  * `rawBody` must be the exact bytes received (`await request.text()`): the signature covers them, and a body that
@@ -21,12 +25,11 @@ export async function receiveWebhook(rawBody: string, signature: string | null, 
 		console.error('[payments] STRIPE_WEBHOOK_SECRET is not set: webhook events cannot be checked and are refused');
 		return { status: 503, body: { received: false, error: 'not-configured', message: 'Webhooks are not set up on this server.' } };
 	}
-	let event: Stripe.Event;
-	try {
-		event = webhooks.constructEvent(rawBody, signature, secret);
-	} catch (e) {
-		return { status: 400, body: { received: false, error: 'bad-signature', message: e instanceof Error ? e.message : 'Bad signature.' } };
-	}
+	const checked = checkDelivery(rawBody, signature, secret);
+	if (checked.kind === 'bad-signature') return { status: 400, body: { received: false, error: 'bad-signature', message: checked.message } };
+	// signed by the provider but unusable: acknowledged (a retry would be the same bytes) and kept as rejected
+	if (checked.kind === 'malformed') return recordRejected(checked);
+	const event = checked.event;
 
 	let outcome: { duplicate: true } | { duplicate: false; settled: Settled };
 	try {
@@ -50,6 +53,20 @@ export async function receiveWebhook(rawBody: string, signature: string | null, 
 	if (outcome.duplicate) return { status: 200, body: { received: true, duplicate: true } };
 	mailSettlement(outcome.settled, origin);
 	return { status: 200, body: { received: true } };
+}
+
+async function recordRejected(found: Extract<CheckedDelivery, { kind: 'malformed' }>): Promise<WebhookReply> {
+	console.warn(`[payments] rejected a signed webhook event ${found.id}: ${found.reason}`);
+	try {
+		await db
+			.insert(webhookEvents)
+			.values({ id: found.id, type: found.type, payload: found.payload ?? {}, rejectedReason: found.reason.slice(0, 500) })
+			.onConflictDoNothing();
+	} catch (e) {
+		console.error('[payments] could not record a rejected event', e instanceof Error ? e.message : e);
+		return { status: 503, body: { received: false, error: 'try-again', message: 'Could not record the event just now.' } };
+	}
+	return { status: 200, body: { received: true, rejected: true, message: found.reason } };
 }
 
 function settleEvent(tx: Tx, event: Stripe.Event): Promise<Settled> {
