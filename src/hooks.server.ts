@@ -1,4 +1,4 @@
-// Request hooks: security headers, then the session (who is signed in, with which roles) into locals.
+// Request hooks: security headers, the input gate (body limits, unstorable characters), then the session (who is signed in, with which roles) into locals.
 import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
@@ -6,6 +6,7 @@ import { client } from '$lib/server/db';
 import { readSession } from '$lib/server/auth';
 import { closeQueue } from '$lib/server/attempts/queue';
 import { startInlineWorker } from '$lib/server/attempts/worker';
+import { guardInput } from '$lib/server/edge/guard-input';
 
 // adapter-node waits for open handles before exiting: stop the job queue, then close the pool
 process.on('sveltekit:shutdown', () => {
@@ -17,10 +18,13 @@ export const init: ServerInit = () => {
 	if (!building) void startInlineWorker();
 };
 
-const securityHeaders: Handle = async ({ event, resolve }) => {
+/** On every response (pages get their Content-Security-Policy from `kit.csp` in svelte.config.js). */
+export const securityHeaders: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);
 	response.headers.set('x-content-type-options', 'nosniff');
 	response.headers.set('referrer-policy', 'same-origin');
+	// for browsers that predate CSP frame-ancestors: no page of ours inside anyone's frame
+	response.headers.set('x-frame-options', 'DENY');
 	return response;
 };
 
@@ -36,7 +40,7 @@ export const authenticate: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(securityHeaders, authenticate);
+export const handle = sequence(securityHeaders, guardInput, authenticate);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	if (status !== 404) console.error(`[${event.request.method} ${event.url.pathname}]`, error);

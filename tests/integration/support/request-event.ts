@@ -1,8 +1,9 @@
 // Builds SvelteKit request events for integration tests and runs them through the app's real session hook.
 import type { Cookies, RequestEvent } from '@sveltejs/kit';
 import { isHttpError, isRedirect } from '@sveltejs/kit';
-// `handle` is a sequence that needs Kit's request store; `authenticate` is the part that sets locals
+// `handle` is a sequence that needs Kit's request store; these are its parts that refuse bad input and set locals
 import { authenticate } from '../../../src/hooks.server';
+import { guardInput } from '$lib/server/edge/guard-input';
 
 /** A cookie jar with the parts of Kit's Cookies the app uses; keeps what the server sets. */
 export type TestCookies = Cookies & { jar: Map<string, string>; options: Map<string, Record<string, unknown>> };
@@ -78,22 +79,42 @@ export type Outcome<T> =
 	| { kind: 'redirect'; status: number; location: string }
 	| { kind: 'error'; status: number; message: string };
 
-/** Runs `fn` inside the app's session hook (so locals come from the real session code) and reports how it ended. */
+/**
+ * Runs `fn` behind the app's input gate and inside its session hook (so locals come from the real session code)
+ * and reports how it ended; a request the gate refuses ends as an error with the gate's status and message.
+ */
 export async function throughHooks<T>(event: RequestEvent, fn: (e: RequestEvent) => T | Promise<T>): Promise<Outcome<T>> {
 	let value: T | undefined;
+	let reached = false;
 	try {
-		await authenticate({
+		const response = await guardInput({
 			event,
-			resolve: async (e) => {
-				value = await fn(e);
-				return value instanceof Response ? value : new Response(null);
-			}
+			resolve: (gated) =>
+				authenticate({
+					event: gated,
+					resolve: async (e) => {
+						reached = true;
+						value = await fn(e);
+						return value instanceof Response ? value : new Response(null);
+					}
+				})
 		});
+		if (!reached) return { kind: 'error', status: response.status, message: await refusalMessage(response) };
 		return { kind: 'value', value: value as T };
 	} catch (e) {
 		if (isRedirect(e)) return { kind: 'redirect', status: e.status, location: e.location };
 		if (isHttpError(e)) return { kind: 'error', status: e.status, message: e.body.message };
 		throw e;
+	}
+}
+
+async function refusalMessage(response: Response): Promise<string> {
+	const text = await response.text();
+	try {
+		const body = JSON.parse(text) as { message?: string; error?: { message?: string } };
+		return body.message ?? body.error?.message ?? text;
+	} catch {
+		return text;
 	}
 }
 

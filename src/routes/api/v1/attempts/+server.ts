@@ -2,6 +2,7 @@
 import { json } from '@sveltejs/kit';
 import { checkApiAccess } from '$lib/server/guards';
 import { maxRequestBytes } from '$lib/server/attempts/limits';
+import { firstUnstorableInForm, unstorableFormMessage } from '$lib/server/edge/unstorable';
 import { readUploadForm } from '$lib/server/attempts/upload-form';
 import { submitAttempt } from '$lib/server/attempts/submit';
 import type { RequestHandler } from './$types';
@@ -29,6 +30,8 @@ export const POST: RequestHandler = async ({ locals, request }) => {
 		if (payloadTooLarge(error)) return tooLarge();
 		return json({ error: 'bad-request', message: 'Send the frames as a multipart form (the upload page does this).' }, { status: 400 });
 	}
+	const unstorable = firstUnstorableInForm(data);
+	if (unstorable) return json({ error: 'bad-input', message: unstorableFormMessage(unstorable) }, { status: 400 });
 	const form = readUploadForm(data);
 	if (!form.ok) return json({ error: 'bad-request', message: form.message }, { status: 400 });
 

@@ -1,5 +1,6 @@
 // POST /api/v1/author/images (multipart: file, alt): stores a lesson image as WebP and answers with its Markdown.
 import { json } from '@sveltejs/kit';
+import { firstUnstorableInForm, unstorableFormMessage } from '$lib/server/edge/unstorable';
 import { checkApiAccess } from '$lib/server/guards';
 import { MAX_IMAGE_BYTES, storeLessonImage } from '$lib/server/authoring/images';
 import type { RequestHandler } from './$types';
@@ -21,6 +22,8 @@ export const POST: RequestHandler = async ({ locals, request }) => {
 		if ((error as { status?: number } | null)?.status === 413) return tooLarge();
 		return json({ error: 'bad-request', message: 'Choose an image file to upload.' }, { status: 400 });
 	}
+	const unstorable = firstUnstorableInForm(form);
+	if (unstorable) return json({ error: 'bad-input', message: unstorableFormMessage(unstorable) }, { status: 400 });
 	const file = form.get('file');
 	if (!(file instanceof File)) return json({ error: 'bad-request', message: 'Choose an image file to upload.' }, { status: 400 });
 	const alt = String(form.get('alt') ?? '').slice(0, 200);
