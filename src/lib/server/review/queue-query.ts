@@ -95,13 +95,14 @@ interface RawRow extends Record<string, unknown> {
 	last_frame: string | null;
 }
 
-export async function fetchReviewQueue(params: QueueParams, now = new Date()): Promise<QueueAnswer> {
+/** `reviewerId`: the mentor asking; their own attempts (as a learner) are left out, since someone else reviews them. */
+export async function fetchReviewQueue(params: QueueParams, reviewerId: string, now = new Date()): Promise<QueueAnswer> {
 	const cursor = params.cursor ? decodeCursor(params.cursor, params.sort) : null;
 	if (params.cursor && !cursor) return { ok: false, message: 'That page link has expired. Start from the first page.' };
 	const allowed = await allowedAssignments(params);
 	if (allowed && allowed.length === 0) return { ok: true, rows: [], nextCursor: null };
 
-	const filters: SQL[] = [];
+	const filters: SQL[] = [sql`a.user_id <> ${reviewerId}`];
 	if (allowed) filters.push(sql`a.assignment_id in (${sql.join(allowed.map((id) => sql`${id}`), sql`, `)})`);
 	const { from, until } = ageBounds(params.age, now);
 	if (from) filters.push(sql`a.created_at >= ${from.toISOString()}::timestamptz`);

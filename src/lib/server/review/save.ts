@@ -11,15 +11,20 @@ export interface Mentor {
 	email: string;
 }
 
-export type Saved<T = object> = ({ ok: true } & T) | { ok: false; status: 400 | 404 | 409; message: string; field?: 'text' | 'reason' };
+export type Saved<T = object> = ({ ok: true } & T) | { ok: false; status: 400 | 403 | 404 | 409; message: string; field?: 'text' | 'reason' };
+
+/** Separation of duties: nobody reviews, pins, scores or overrides an attempt they submitted themselves. */
+export const ownAttemptMessage = 'This is your own attempt: another mentor reviews it.';
 
 const MAX_PIN_TEXT = 1000;
 const MAX_CRITIQUE = 10_000;
 const REVIEWABLE = ['graded', 'error'] as const;
 
-async function reviewable(attemptId: string): Promise<Saved> {
-	const row = await db.query.attempts.findFirst({ where: eq(attempts.id, attemptId), columns: { status: true } });
+async function reviewable(mentor: Mentor, attemptId: string, needsGraded = true): Promise<Saved> {
+	const row = await db.query.attempts.findFirst({ where: eq(attempts.id, attemptId), columns: { status: true, userId: true } });
 	if (!row) return { ok: false, status: 404, message: 'There is no such attempt.' };
+	if (row.userId === mentor.id) return { ok: false, status: 403, message: ownAttemptMessage };
+	if (!needsGraded) return { ok: true };
 	if (!(REVIEWABLE as readonly string[]).includes(row.status)) return { ok: false, status: 409, message: 'This attempt is still being graded. Try again in a moment.' };
 	return { ok: true };
 }
@@ -46,7 +51,7 @@ export async function addPin(mentor: Mentor, attemptId: string, input: PinInput)
 	if (!text) return { ok: false, status: 400, message: 'Write what the pin should say.' };
 	if (text.length > MAX_PIN_TEXT) return { ok: false, status: 400, message: `Keep a pin under ${MAX_PIN_TEXT} characters; put the rest in the critique.` };
 	if (![input.x, input.y].every((v) => Number.isFinite(v) && v >= 0 && v <= 1)) return { ok: false, status: 400, message: 'Place the pin on the photo.' };
-	const open = await reviewable(attemptId);
+	const open = await reviewable(mentor, attemptId);
 	if (!open.ok) return open;
 	const frame = await db.query.attemptFrames.findFirst({ where: and(eq(attemptFrames.attemptId, attemptId), eq(attemptFrames.name, input.frameName)), columns: { id: true } });
 	if (!frame) return { ok: false, status: 400, message: 'That frame is not part of this attempt.' };
@@ -80,7 +85,9 @@ export async function addPin(mentor: Mentor, attemptId: string, input: PinInput)
 	return { ok: false, status: 409, message: 'Another pin was added at the same moment. Please try again.' };
 }
 
-export async function removePin(attemptId: string, pinId: number): Promise<Saved> {
+export async function removePin(mentor: Mentor, attemptId: string, pinId: number): Promise<Saved> {
+	const allowed = await reviewable(mentor, attemptId, false);
+	if (!allowed.ok) return allowed;
 	const gone = await db.delete(pins).where(and(eq(pins.attemptId, attemptId), eq(pins.id, pinId))).returning({ id: pins.id });
 	return gone.length ? { ok: true } : { ok: false, status: 404, message: 'That pin is already gone.' };
 }
@@ -114,13 +121,14 @@ export async function saveReview(mentor: Mentor, attemptId: string, input: Revie
 
 	return db.transaction(async (tx) => {
 		const [row] = await tx
-			.select({ verdict: attempts.verdict, status: attempts.status, reviewState: attempts.reviewState, spec: attempts.spec, email: users.email, name: users.name, assignment: assignments.title })
+			.select({ learnerId: attempts.userId, verdict: attempts.verdict, status: attempts.status, reviewState: attempts.reviewState, spec: attempts.spec, email: users.email, name: users.name, assignment: assignments.title })
 			.from(attempts)
 			.innerJoin(users, eq(attempts.userId, users.id))
 			.innerJoin(assignments, eq(attempts.assignmentId, assignments.id))
 			.where(eq(attempts.id, attemptId))
 			.for('update', { of: attempts });
 		if (!row) return { ok: false, status: 404, message: 'There is no such attempt.' } as const;
+		if (row.learnerId === mentor.id) return { ok: false, status: 403, message: ownAttemptMessage } as const;
 		if (!(REVIEWABLE as readonly string[]).includes(row.status)) return { ok: false, status: 409, message: 'This attempt is still being graded. Try again in a moment.' } as const;
 		const changed = input.verdict !== 'keep' && input.verdict !== row.verdict;
 		if (changed && reason.length < 5) return { ok: false, status: 400, field: 'reason', message: 'Say why you change the verdict: the learner reads it, and it is kept on record.' } as const;

@@ -6,9 +6,9 @@ import { countWaiting } from '$lib/server/review/waiting';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	requireRole(event, 'mentor');
+	const mentor = requireRole(event, 'mentor');
 	const params = { ...readQueueParams(event.url.searchParams), cursor: '' };
-	const [page, options, waiting] = await Promise.all([fetchReviewQueue(params), queueFilterOptions(), countWaiting()]);
+	const [page, options, waiting] = await Promise.all([fetchReviewQueue(params, mentor.id), queueFilterOptions(), countWaiting()]);
 	const { cursor: _cursor, ...query } = params;
 	return { query, attempts: page.ok ? page.rows : [], nextCursor: page.ok ? page.nextCursor : null, options, waiting };
 };

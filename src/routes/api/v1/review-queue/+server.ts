@@ -9,7 +9,7 @@ export const GET: RequestHandler = async ({ locals, url }) => {
 	const access = checkApiAccess(locals, 'mentor');
 	if (!access.ok) return access.response;
 	const params = readQueueParams(url.searchParams);
-	const page = await fetchReviewQueue(params);
+	const page = await fetchReviewQueue(params, access.user.id);
 	if (!page.ok) return json({ error: 'bad-cursor', message: page.message }, { status: 400 });
 	const { cursor: _cursor, ...query } = params;
 	return json({ query, attempts: page.rows, nextCursor: page.nextCursor }, { headers: { 'cache-control': 'no-store' } });

@@ -5,7 +5,7 @@ import { message, setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { requireRole } from '$lib/server/guards';
 import { loadAttemptView } from '$lib/server/attempts/view';
-import { addPin, removePin, saveReview } from '$lib/server/review/save';
+import { addPin, ownAttemptMessage, removePin, saveReview } from '$lib/server/review/save';
 import { sendCritiqueMail } from '$lib/server/review/notify-learner';
 import { pinSchema, reviewSchema, unpinSchema, type Notice } from '$lib/forms/review';
 import type { Actions, PageServerLoad } from './$types';
@@ -16,6 +16,8 @@ export const load: PageServerLoad = async (event) => {
 	const mentor = requireRole(event, 'mentor');
 	const attempt = await loadAttemptView(mentor, event.params.id);
 	if (!attempt) error(404, { message: 'There is no such attempt.' });
+	// their own work is read on the learner's page; another mentor reviews it
+	if (attempt.mine) error(403, { message: `${ownAttemptMessage} Your verdict page is /attempts/${attempt.id}.` });
 	const names = attempt.frames.map((f) => f.name);
 	const [pinForms, unpinForms, review] = await Promise.all([
 		Promise.all(names.map((name) => superValidate(newPin(name), zod4(pinSchema), { id: `pin-${name}`, errors: false }))),
@@ -47,10 +49,10 @@ export const actions = {
 		return message(form, { text: `Pin ${saved.number} added.`, ok: true } satisfies Notice);
 	},
 	unpin: async (event) => {
-		requireRole(event, 'mentor');
+		const mentor = requireRole(event, 'mentor');
 		const form = await superValidate(event.request, zod4(unpinSchema));
 		if (!form.valid) return fail(400, { form });
-		const saved = await removePin(event.params.id, form.data.pin);
+		const saved = await removePin(mentor, event.params.id, form.data.pin);
 		if (!saved.ok) return message(form, { text: saved.message, ok: false } satisfies Notice, { status: saved.status });
 		return message(form, { text: 'Pin removed.', ok: true } satisfies Notice);
 	},
