@@ -3,17 +3,18 @@ import { and, eq, ne } from 'drizzle-orm';
 import { db } from './db';
 import { users, type TokenPurpose } from './db/schema';
 import { consumeToken, issueToken, lastIssuedAt, peekToken, tokenLifetimeMinutes } from './tokens';
-import { sendLetter, type SendResult } from './mail';
+import { sendInBackground, sendLetter, type SendResult } from './mail';
 import {
 	changeEmailLetter,
 	emailChangedNotice,
+	existingAccountLetter,
 	passwordChangedNotice,
 	resetPasswordLetter,
 	verifyEmailLetter
 } from './mail-letters';
 import { endAllSessions } from './auth';
 import { hashPassword } from './password';
-import { clearFailures, throttleKeysFor } from './throttle';
+import { clearFailures, recordFailure, secondsUntilUnlocked, throttleKeysFor } from './throttle';
 import { findUserByEmail } from './accounts';
 
 /** Do not send the same kind of mail to one person more often than this. */
@@ -56,6 +57,27 @@ export function requestPasswordReset(email: string, origin: string): Promise<voi
 	return work;
 }
 
+/**
+ * After a sign-up form: the account's owner hears of it by e-mail, a new address gets its confirmation link. Runs
+ * after the answer, which is the same either way, so neither the page nor its timing says whether the address
+ * has an account.
+ */
+export function mailAfterSignUp(outcome: { created: true; user: { id: string; email: string; name: string } } | { created: false; email: string }, origin: string): void {
+	sendInBackground('sign-up mail', async () => {
+		if (outcome.created) {
+			await sendVerificationMail(outcome.user, origin);
+			return;
+		}
+		const owner = await findUserByEmail(outcome.email);
+		if (!owner) return;
+		// the form can be sent by anyone: it must not become a way to fill someone's inbox
+		const keys = [{ kind: 'notice' as const, key: `signup-notice:${owner.email}` }];
+		if ((await secondsUntilUnlocked(keys)) > 0) return;
+		await recordFailure(keys);
+		await sendLetter(existingAccountLetter(owner.email, owner.name, `${origin}/signin`, `${origin}/reset`));
+	});
+}
+
 /** Which link this is, while it is still usable: for the confirm pages. */
 export async function describeLink(token: string, purposes: TokenPurpose[]) {
 	for (const purpose of purposes) {
@@ -88,7 +110,7 @@ export async function resetPassword(token: string, newPassword: string): Promise
 }
 
 export type ConfirmResult =
-	| { ok: true; purpose: 'verify_email' | 'change_email'; email: string }
+	| { ok: true; purpose: 'verify_email' | 'change_email'; email: string; userId: string }
 	| { ok: false; message: string };
 
 /** Uses a verification or change-of-address link. */
@@ -101,9 +123,9 @@ export async function confirmAddress(token: string): Promise<ConfirmResult> {
 			.update(users)
 			.set({ emailVerified: true })
 			.where(and(eq(users.id, row.userId), eq(users.email, row.email)));
-		return row.email;
+		return row;
 	});
-	if (verified) return { ok: true, purpose: 'verify_email', email: verified };
+	if (verified) return { ok: true, purpose: 'verify_email', email: verified.email, userId: verified.userId };
 
 	const moved = await db.transaction(async (tx) => {
 		const row = await consumeToken(tx, token, 'change_email');
@@ -112,7 +134,7 @@ export async function confirmAddress(token: string): Promise<ConfirmResult> {
 		if (taken) return { taken: true as const };
 		const [before] = await tx.select({ email: users.email, name: users.name }).from(users).where(eq(users.id, row.userId));
 		await tx.update(users).set({ email: row.email, emailVerified: true }).where(eq(users.id, row.userId));
-		return { taken: false as const, oldEmail: before.email, name: before.name, newEmail: row.email };
+		return { taken: false as const, oldEmail: before.email, name: before.name, newEmail: row.email, userId: row.userId };
 	}).catch((e: unknown) => {
 		// someone signed up with the address between our check and the update (unique index)
 		if ((e as { code?: string })?.code === '23505') return { taken: true as const };
@@ -121,7 +143,7 @@ export async function confirmAddress(token: string): Promise<ConfirmResult> {
 	if (!moved) return spent;
 	if (moved.taken) return { ok: false, message: 'Another account uses that address now, so it cannot be moved to it.' };
 	await sendLetter(emailChangedNotice(moved.oldEmail, moved.name, moved.newEmail));
-	return { ok: true, purpose: 'change_email', email: moved.newEmail };
+	return { ok: true, purpose: 'change_email', email: moved.newEmail, userId: moved.userId };
 }
 
 export type EmailChangeResult = { ok: true } | { ok: false; field: 'newEmail' | 'password'; message: string };

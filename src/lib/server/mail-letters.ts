@@ -30,6 +30,21 @@ export function verifyEmailLetter(to: string, name: string, href: string, hours:
 	);
 }
 
+/** Someone signed up with an address that has an account: the owner learns of it, the sign-up page said nothing. */
+export function existingAccountLetter(to: string, name: string, signInHref: string, resetHref: string): Letter {
+	return compose(
+		to,
+		'Someone tried to create a Stopwise account with your address',
+		[
+			`Hello ${name},`,
+			'Someone (perhaps you) asked to create a Stopwise account with this address. You already have one, so nothing was created and nothing changed.',
+			`If it was you, sign in with your password. If you have forgotten it, ask for a new one at ${resetHref}.`,
+			'If it was not you, you need not do anything.'
+		],
+		{ href: signInHref, label: 'Sign in' }
+	);
+}
+
 export function resetPasswordLetter(to: string, name: string, href: string, minutes: number): Letter {
 	return compose(
 		to,
@@ -103,14 +118,17 @@ export function receiptLetter(to: string, name: string, r: ReceiptFacts): Letter
 	);
 }
 
-export function refundLetter(to: string, name: string, r: Omit<ReceiptFacts, 'paidAt' | 'coupon'>): Letter {
+/** `accessKept`: another payment or a grant still covers the course, so the lessons stay open. */
+export function refundLetter(to: string, name: string, r: Omit<ReceiptFacts, 'paidAt' | 'coupon'> & { accessKept?: boolean }): Letter {
 	return compose(
 		to,
 		`Your Stopwise refund: ${r.course}`,
 		[
 			`Hello ${name},`,
 			`We refunded ${r.amount} for "${r.course}" (reference ${r.reference}). It usually reaches your card within a few working days.`,
-			'The members-only lessons of this course are closed to your account now; the open lessons stay open to everyone.'
+			r.accessKept
+				? 'Your access to this course stays open: another payment or a grant still covers it.'
+				: 'The members-only lessons of this course are closed to your account now; the open lessons stay open to everyone.'
 		],
 		{ href: r.href, label: 'See your billing page' }
 	);

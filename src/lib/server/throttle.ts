@@ -1,4 +1,4 @@
-// Sign-in throttling in PostgreSQL (survives restarts, shared by every process): backoff after repeated failures.
+// Throttling of guesses (sign-in passwords, coupon codes) in PostgreSQL (survives restarts, shared by every process): backoff after repeated failures.
 import { inArray, sql } from 'drizzle-orm';
 import { db } from './db';
 import { signInThrottle } from './db/schema';
@@ -10,9 +10,13 @@ type Rule = { free: number; baseSeconds: number; capSeconds: number };
  * gets more before it waits, because a club or office shares one address.
  * Common practice, no published source.
  */
-export const throttleRules: Record<'account' | 'address', Rule> = {
+export const throttleRules: Record<'account' | 'address' | 'coupon' | 'notice', Rule> = {
 	account: { free: 5, baseSeconds: 15, capSeconds: 15 * 60 },
-	address: { free: 30, baseSeconds: 15, capSeconds: 15 * 60 }
+	address: { free: 30, baseSeconds: 15, capSeconds: 15 * 60 },
+	// wrong coupon codes, per learner: guessing codes is guessing passwords to a discount
+	coupon: { free: 5, baseSeconds: 15, capSeconds: 15 * 60 },
+	// mails the sign-up form makes us send to someone else's inbox: a few, then further ones wait
+	notice: { free: 2, baseSeconds: 60, capSeconds: 60 * 60 }
 };
 
 /** Failures older than this are forgotten. */
@@ -24,6 +28,14 @@ export function throttleKeysFor(email: string, address: string): ThrottleKey[] {
 	return [
 		{ kind: 'account', key: `account:${email.trim().toLowerCase()}` },
 		{ kind: 'address', key: `address:${address}` }
+	];
+}
+
+/** Coupon guesses: per learner and per address, in keys of their own (a wrong code never locks sign-in). */
+export function couponThrottleKeysFor(userId: string, address: string): ThrottleKey[] {
+	return [
+		{ kind: 'coupon', key: `coupon-user:${userId}` },
+		{ kind: 'address', key: `coupon-address:${address}` }
 	];
 }
 

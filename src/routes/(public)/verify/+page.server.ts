@@ -2,6 +2,7 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { confirmAddress, describeLink } from '$lib/server/account-links';
+import { startSession } from '$lib/server/auth';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ url }) => {
@@ -13,11 +14,13 @@ export const load: PageServerLoad = async ({ url }) => {
 const confirmSchema = z.object({ token: z.string().min(1).max(200) });
 
 export const actions = {
-	default: async ({ request }) => {
+	default: async ({ request, cookies, locals }) => {
 		const parsed = confirmSchema.safeParse(Object.fromEntries(await request.formData()));
 		if (!parsed.success) return fail(400, { message: 'This link is incomplete. Open it again from the e-mail.' });
 		const result = await confirmAddress(parsed.data.token);
 		if (!result.ok) return fail(400, { message: result.message });
+		// a new account's first link proves the mailbox is theirs: it also signs them in (sign-up no longer does)
+		if (result.purpose === 'verify_email' && !locals.user) await startSession(cookies, result.userId, locals.session?.id);
 		return { confirmed: { purpose: result.purpose, email: result.email } };
 	}
 } satisfies Actions;

@@ -43,7 +43,7 @@ export const actions = {
 		const user = requireUser(event);
 		const data = await event.request.formData();
 		const coupon = String(data.get('coupon') ?? '').slice(0, 100);
-		const started = await startCheckout(user, event.params.course, coupon, event.url.origin);
+		const started = await startCheckout(user, event.params.course, coupon, event.url.origin, event.getClientAddress());
 		if (started.kind === 'refused') return fail(started.status, { enrol: { message: started.message, coupon } });
 		if (started.kind === 'enrolled') redirect(303, `/courses/${event.params.course}?checkout=${started.already ? 'already' : 'free'}`);
 		// the provider's payment page, on another origin: the form is a plain POST, so the browser follows this 303
