@@ -30,7 +30,7 @@ export function analysisSizeFor(width: number, height: number): { width: number;
 	return { width: Math.ceil(width / shrink), height: Math.ceil(height / shrink), shrink };
 }
 // smaller than this and there is no subject and background to tell apart
-const MIN_SIDE = 16;
+export const MIN_SIDE = 16;
 
 export function resolveLimits(limits: Partial<InputLimits> | undefined): InputLimits {
 	return { ...DEFAULT_LIMITS, ...limits };

@@ -1,5 +1,6 @@
 // Checks each uploaded frame and writes its original and display copies (no GPS or personal metadata) to the store.
-import { detectFileType, displayCopies, FrameReadError } from '../analysis/index';
+import { DEFAULT_LIMITS, detectFileType, displayCopies, FrameReadError } from '../analysis/index';
+import { framePixelsProblem } from './frame-integrity';
 import { fileStore } from '../storage/index';
 import { frameKeys, MIME_TYPES } from './keys';
 import { maxUploadBytes } from './limits';
@@ -47,6 +48,12 @@ export async function checkFrames(names: readonly string[], files: Map<string, F
 			try {
 				// displayCopies refuses, in the learner's words, every kind it cannot show (HEIC, RAW, GIF, unknown)
 				const copies = await displayCopies(bytes, { limits: { maxBytes: limit } });
+				// too small to measure, or damaged data a lenient decode turned into grey: refused now, not graded later
+				const pixels = await framePixelsProblem(bytes, DEFAULT_LIMITS.maxPixels);
+				if (pixels) {
+					problems[name] = pixels;
+					return;
+				}
 				const kind = detectFileType(bytes).kind as CheckedFrame['kind'];
 				frames.push({ name, index, bytes, kind, large: copies.large.data, thumb: copies.thumbnail.data });
 			} catch (error) {
