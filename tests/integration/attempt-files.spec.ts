@@ -1,6 +1,7 @@
 // Who may read an Attempt's files and status: the learner who made it, mentors and admins; display copies carry no personal metadata.
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import exifr from 'exifr';
+import sharp from 'sharp';
 import { closeQueue, GRADE_QUEUE, openQueue, queueGrading } from '$lib/server/attempts/queue';
 import { submitAttempt } from '$lib/server/attempts/submit';
 import { readUploadForm } from '$lib/server/attempts/upload-form';
@@ -79,11 +80,21 @@ describe('attempt files', () => {
 		const cookies = await signedInCookies(owner.email);
 		const original = Buffer.from(await (await fetchFile(cookies, 'lit', 'original')).arrayBuffer());
 		expect((await exifr.gps(original))?.latitude).toBeCloseTo(47.6, 1);
+		// exifr cannot open WebP at all (it throws "Unknown file format"), so read the WebP's metadata with sharp and
+		// hand exifr the Exif block; the same reader must see GPS in a WebP that does keep it, or it proves nothing
+		const gpsInWebp = async (webp: Buffer) => {
+			const meta = await sharp(webp).metadata();
+			return meta.exif ? ((await exifr.gps(meta.exif.subarray(6))) ?? null) : null;
+		};
+		const leaky = await sharp(original).webp().keepExif().toBuffer();
+		expect((await gpsInWebp(leaky))?.latitude).toBeCloseTo(47.6, 1);
 		for (const variant of ['large', 'thumb']) {
 			const response = await fetchFile(cookies, 'lit', variant);
 			expect(response.headers.get('content-type')).toBe('image/webp');
 			const copy = Buffer.from(await response.arrayBuffer());
-			expect(await exifr.parse(copy).catch(() => undefined)).toBeUndefined();
+			expect(await gpsInWebp(copy)).toBeNull();
+			const meta = await sharp(copy).metadata();
+			expect([meta.exif, meta.xmp, meta.iptc]).toEqual([undefined, undefined, undefined]);
 			expect(copy.includes(Buffer.from('SN-0042-TEST'))).toBe(false);
 			expect(copy.includes(Buffer.from('Jordan Example'))).toBe(false);
 		}
@@ -111,15 +122,14 @@ describe('attempt status', () => {
 		expect(first).toMatchObject({ id: attemptId, status: 'queued', verdict: null });
 		const waiting = status(cookies, '?wait=20&known=queued');
 		const worker = await startGradingWorker();
-		const started = Date.now();
 		await queueGrading(attemptId);
 		try {
 			// the first change seen is 'grading', then 'graded'
 			let body = await (await waiting).json();
 			if (body.status === 'grading') body = await (await status(cookies, '?wait=20&known=grading')).json();
+			// a poll that was not woken would end after its 20 s still 'queued' (and past this test's time limit); how soon
+			// the wake comes is a figure for `npm run bench` (upload to verdict), not a timed test
 			expect(body).toMatchObject({ status: 'graded', verdict: 'pass' });
-			// far sooner than the 20 s the request was willing to wait
-			expect(Date.now() - started).toBeLessThan(10_000);
 		} finally {
 			await worker.stop();
 		}

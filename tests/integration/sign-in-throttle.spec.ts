@@ -81,23 +81,7 @@ describe('sign-in throttling', () => {
 		expect(answerOf(await signIn(ghost, 'guess', address)).status).toBe(429);
 	});
 
-	test('unknown accounts cost the same password hashing as known ones (similar timing)', async () => {
-		const person = await freshLearner();
-		const time = async (email: string) => {
-			const t0 = performance.now();
-			await signIn(email, 'wrong password!', testAddress());
-			return performance.now() - t0;
-		};
-		const median = (xs: number[]) => xs.sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-		const knownMs: number[] = [];
-		const unknownMs: number[] = [];
-		for (let i = 0; i < 5; i++) {
-			knownMs.push(await time(person.email));
-			unknownMs.push(await time(`nobody-${i}-${Date.now()}@test.example`));
-		}
-		// without the dummy hash an unknown account answers in about a millisecond, a known one after a full argon2id check
-		expect(median(unknownMs)).toBeGreaterThan(median(knownMs) * 0.5);
-	});
+	// that unknown accounts cost the same hashing as known ones is a timing: `npm run bench` measures it (sign-in-timing)
 
 	test('one address is throttled after many failures across different accounts', async () => {
 		const address = testAddress();
