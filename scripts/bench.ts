@@ -2,9 +2,11 @@
 import { gradingBench } from './bench/grading';
 import { reviewQueueBench } from './bench/review-queue';
 import { uploadToVerdictBench } from './bench/upload-to-verdict';
+import { healthUnderGradingBench } from './bench/health-under-grading';
+import { signInTimingBench } from './bench/sign-in-timing';
 import type { Bench } from './bench/timing';
 
-const BENCHES: Bench[] = [gradingBench, reviewQueueBench, uploadToVerdictBench];
+const BENCHES: Bench[] = [gradingBench, reviewQueueBench, uploadToVerdictBench, healthUnderGradingBench, signInTimingBench];
 
 async function main(): Promise<number> {
 	let missed = 0;
