@@ -20,7 +20,8 @@ const config = {
 				// Svelte writes inline style attributes (widgets, charts, progress bars); with 'unsafe-inline' here Kit adds no style nonce
 				'style-src': ['self', 'unsafe-inline'],
 				'img-src': ['self', 'data:', 'blob:'],
-				'font-src': ['self'],
+				// Vite inlines small font files as data: URLs
+				'font-src': ['self', 'data:'],
 				'connect-src': ['self'],
 				'media-src': ['self', 'blob:'],
 				'object-src': ['none'],
