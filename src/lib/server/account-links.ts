@@ -74,7 +74,7 @@ export function mailAfterSignUp(outcome: { created: true; user: { id: string; em
 		const keys = [{ kind: 'notice' as const, key: `signup-notice:${owner.email}` }];
 		if ((await secondsUntilUnlocked(keys)) > 0) return;
 		await recordFailure(keys);
-		await sendLetter(existingAccountLetter(owner.email, owner.name, `${origin}/signin`, `${origin}/reset`));
+		await sendLetter(existingAccountLetter(owner.email, owner.name, `${origin}/signin`));
 	});
 }
 

@@ -31,14 +31,14 @@ export function verifyEmailLetter(to: string, name: string, href: string, hours:
 }
 
 /** Someone signed up with an address that has an account: the owner learns of it, the sign-up page said nothing. */
-export function existingAccountLetter(to: string, name: string, signInHref: string, resetHref: string): Letter {
+export function existingAccountLetter(to: string, name: string, signInHref: string): Letter {
 	return compose(
 		to,
 		'Someone tried to create a Stopwise account with your address',
 		[
 			`Hello ${name},`,
 			'Someone (perhaps you) asked to create a Stopwise account with this address. You already have one, so nothing was created and nothing changed.',
-			`If it was you, sign in with your password. If you have forgotten it, ask for a new one at ${resetHref}.`,
+			'If it was you, sign in with your password. If you have forgotten it, choose “Forgot your password?” on the sign-in page.',
 			'If it was not you, you need not do anything.'
 		],
 		{ href: signInHref, label: 'Sign in' }
