@@ -2,6 +2,8 @@
 // for review, pin, unpin, score or override it, and the review queue (page and API) leaves it out.
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { eq } from 'drizzle-orm';
+import { randomUUID } from 'node:crypto';
+import { stringify } from 'devalue';
 import { db } from '$lib/server/db';
 import { attempts, critiques, pins, users, verdictOverrides } from '$lib/server/db/schema';
 import { closeQueue, GRADE_QUEUE, openQueue } from '$lib/server/attempts/queue';
@@ -54,19 +56,19 @@ describe('a mentor on their own attempt', () => {
 
 	test('cannot pin, unpin, score or override it; nothing is stored', async () => {
 		const before = await db.query.attempts.findFirst({ where: eq(attempts.id, attemptId) });
-		const pin = await asSelf('pin', { frame: 'lit', x: '0.5', y: '0.5', text: 'Looks great to me' });
-		expect(failureOf((pin as { value: unknown }).value)).toMatchObject({ status: 403, data: { pin: { message: expect.stringMatching(/your own attempt/) } } });
+		const pin = await asSelf('pin', { __superform_id: 'pin-lit', frame: 'lit', key: randomUUID(), across: '50', down: '50', text: 'Looks great to me' });
+		expect(failureOf((pin as { value: unknown }).value)).toMatchObject({ status: 403, data: { form: { message: { text: expect.stringMatching(/your own attempt/), ok: false } } } });
 
 		// a pin another mentor left stays put
 		const mentorId = (await db.query.users.findFirst({ where: eq(users.email, demoAccount('mentor').email) }))!.id;
 		const [other] = await db.insert(pins).values({ attemptId, frameName: 'lit', number: 1, x: 0.2, y: 0.2, text: 'From another mentor', mentorId }).returning();
-		const unpin = await asSelf('unpin', { pin: String(other.id) });
+		const unpin = await asSelf('unpin', { __superform_id: 'unpin-lit', pin: String(other.id) });
 		expect(failureOf((unpin as { value: unknown }).value)).toMatchObject({ status: 403 });
 		expect(await db.select().from(pins).where(eq(pins.attemptId, attemptId))).toHaveLength(1);
 
 		const flipped = before!.verdict === 'pass' ? 'fail' : 'pass';
-		const review = await asSelf('review', { text: 'I did well', verdict: flipped, reason: 'I think it passes', 'rubric:light': '5' });
-		expect(failureOf((review as { value: unknown }).value)).toMatchObject({ status: 403, data: { review: { message: expect.stringMatching(/your own attempt/) } } });
+		const review = await asSelf('review', { __superform_id: 'review', __superform_json: stringify({ rubric: {}, text: 'I did well', verdict: flipped, reason: 'I think it passes' }) });
+		expect(failureOf((review as { value: unknown }).value)).toMatchObject({ status: 403, data: { form: { message: { text: expect.stringMatching(/your own attempt/) } } } });
 		const after = await db.query.attempts.findFirst({ where: eq(attempts.id, attemptId) });
 		expect(after).toMatchObject({ verdict: before!.verdict, reviewState: before!.reviewState });
 		expect(await db.select().from(critiques).where(eq(critiques.attemptId, attemptId))).toEqual([]);

@@ -54,12 +54,13 @@ async function bodyProblem(request: Request): Promise<string | 'too-large' | nul
 	const type = request.headers.get('content-type')?.toLowerCase() ?? '';
 	const text = new TextDecoder().decode(body.bytes);
 	if (type.startsWith('application/x-www-form-urlencoded')) {
-		return firstUnstorableInJson([...new URLSearchParams(text)].flat());
+		const form = new URLSearchParams(text);
+		return firstUnstorableInJson([...form].flat()) ?? escapedInSuperformJson(form);
 	}
 	if (type.startsWith('multipart/form-data')) {
 		try {
 			const form = await new Response(body.bytes, { headers: { 'content-type': type } }).formData();
-			return firstUnstorableInForm(form);
+			return firstUnstorableInForm(form) ?? escapedInSuperformJson(form);
 		} catch {
 			return null; // not parseable: the route answers that itself
 		}
@@ -72,6 +73,17 @@ async function bodyProblem(request: Request): Promise<string | 'too-large' | nul
 		}
 	}
 	return describeUnstorable(text);
+}
+
+/**
+ * superforms posts nested data (a rubric, a record) as one devalue-encoded JSON field, where a control character is
+ * written as an escape (\u0000): look for those escapes too.
+ */
+function escapedInSuperformJson(form: FormData | URLSearchParams): string | null {
+	const packed = form.get('__superform_json');
+	if (typeof packed !== 'string') return null;
+	const escape = /(?<!\\)\\u(00(?:0[0-8bcef]|1[0-9a-f]|7f)|d[89ab][0-9a-f]{2}(?!\\ud[c-f]))/i.exec(packed);
+	return escape ? describeUnstorable(String.fromCharCode(parseInt(escape[1], 16))) : null;
 }
 
 /**
