@@ -33,6 +33,7 @@ const expectations: Record<string, Record<string, Expectation>> = {
 	'/api/v1/author/preview': { POST: { status: authorsNoBody } },
 	'/api/v1/author/spec-check': { POST: { status: authorsNoBody } },
 	'/api/v1/author/images': { POST: { status: authorsNoBody } },
+	'/api/v1/author/spec-trial': { POST: { status: authorsNoBody } },
 	// public (the provider calls it with no session), but an unsigned request is refused whoever sends it
 	'/api/v1/payments/webhook': { POST: { status: { anonymous: 400, learner: 400, mentor: 400, author: 400, admin: 400 } } }
 };

@@ -13,7 +13,7 @@ import { refundPayment } from '$lib/server/payments/admin-payments';
 import { startCheckout } from '$lib/server/payments/checkout';
 import { confirmCheckout } from '$lib/server/payments/confirm';
 import { getStripe } from '$lib/server/payments/stripe';
-import { freshLearner, removeFreshPeople } from './support/people';
+import { demoAccount, freshLearner, removeFreshPeople, userIdOf } from './support/people';
 import { pointAppAt, postWebhook, removeTestEvents, startStripeFake, stopStripeFake, testWebhookSecret, type Fake } from './support/payments';
 import { origin } from './support/request-event';
 
@@ -22,13 +22,15 @@ const coupon = 'HARBOR20';
 let fake: Fake;
 let restoreEnv: () => void;
 let course: { id: number; priceCents: number; currency: string; title: string };
-const admin = { id: 'test-admin', email: 'admin@harborlane.example' };
+let admin: { id: string; email: string };
 
 beforeAll(async () => {
 	// no webhook URL: the tests deliver the fake's events themselves, in the order they choose
 	fake = await startStripeFake('');
 	restoreEnv = pointAppAt(fake.port);
 	course = (await db.query.courses.findFirst({ where: eq(courses.slug, slug) }))!;
+	const email = demoAccount('admin').email;
+	admin = { id: await userIdOf(email), email };
 });
 afterAll(async () => {
 	await stopStripeFake(fake);

@@ -39,6 +39,8 @@ const audiences: Record<string, Record<string, Audience>> = {
 	'/(admin)/admin/enrolments': { grant: 'admin', setStatus: 'admin' },
 	'/(admin)/admin/payments': { refund: 'admin' },
 	'/(admin)/admin/people': { setRoles: 'admin' },
+	'/(admin)/admin/coupons': { create: 'admin' },
+	'/(admin)/admin/coupons/[code]': { change: 'admin' },
 	'/(public)/signout': { default: 'anyone' },
 	'/(public)/signin': { default: 'anyone' },
 	'/(public)/courses/[course]': { enrol: 'signed-in' },

@@ -1,6 +1,7 @@
 // POST /api/v1/author/spec-trial: grades sample frames against spec text as a learner's Attempt would be; stores nothing.
 import { json } from '@sveltejs/kit';
 import { checkApiAccess } from '$lib/server/guards';
+import { firstUnstorableInForm, unstorableFormMessage } from '$lib/server/edge/unstorable';
 import { trySpec } from '$lib/server/attempts/trial';
 import { maxRequestBytes } from '$lib/server/attempts/limits';
 import type { RequestHandler } from './$types';
@@ -16,6 +17,8 @@ export const POST: RequestHandler = async ({ locals, request }) => {
 	} catch {
 		return json({ error: 'bad-request', message: 'Send the spec and the frames as a form upload.' }, { status: 400 });
 	}
+	const unstorable = firstUnstorableInForm(data);
+	if (unstorable) return json({ error: 'bad-input', message: unstorableFormMessage(unstorable) }, { status: 400 });
 	const spec = data.get('spec');
 	if (typeof spec !== 'string' || spec.length > 50_000) return json({ error: 'bad-request', message: 'Send the spec text (at most 50,000 characters).' }, { status: 400 });
 	const files: Record<string, File> = {};
