@@ -111,6 +111,21 @@ export const CRITERION_WORDS: Record<string, KindWords> = {
 		help: 'At most this share of the flash-lit subject may clip to white.',
 		fields: { maxPercent: { label: 'At most', unit: '% of the subject', step: 1, help: 'e.g. 10.' } }
 	},
+	'motion-blur': {
+		label: 'Subject frozen (blur in pixels)',
+		help: 'Blur across the frame from the Exif shutter and focal length for a subject moving at the stated speed and distance; the learner may state their own on the upload form.',
+		fields: {
+			maxPx: { label: 'At most', unit: 'px of blur', step: 1, example: 4, help: 'e.g. 4 pixels on the long side.' },
+			speed: { label: 'Subject speed', unit: 'm/s', step: 0.5, example: 5, help: 'A runner is about 5 m/s.' },
+			distance: { label: 'Camera to subject', unit: 'm', step: 0.5, example: 5, help: 'Metres from the camera to the subject.' },
+			stated: { label: 'Speed stated by the learner', help: 'Set by the upload form, not by authors.' }
+		}
+	},
+	'mentor-judged': {
+		label: 'Judged by a mentor',
+		help: 'What only a person can judge in the picture, such as a light pattern on a face: the frame goes to a mentor with what to look for.',
+		fields: { look: { label: 'What to look for', example: 'A small triangle of light under the far eye', help: 'One or two sentences for the mentor.' } }
+	},
 	bracket: {
 		label: 'Bracket steps',
 		help: 'Each frame’s exposure, from its settings, relative to the first.',
