@@ -78,6 +78,8 @@ test('password reset end to end; the link works once', async ({ page, browser })
 	await page.getByRole('navigation', { name: 'Main' }).getByRole('button', { name: 'Sign out' }).click();
 
 	await page.getByRole('link', { name: 'Forgot your password?' }).click();
+	// the sign-in page has an E-mail field too: wait for the reset page before typing
+	await expect(page.getByRole('heading', { name: 'Reset your password' })).toBeVisible();
 	await page.getByLabel('E-mail', { exact: true }).fill(email);
 	await page.getByRole('button', { name: 'Send me a link' }).click();
 	await expect(page.getByRole('status')).toContainText('a link to choose a new password is on its way');
