@@ -113,7 +113,9 @@ export async function refundPayment(paymentId: number, origin: string): Promise<
 	}
 	const settled = await applyRefundedCharge(stripe, payment.paymentIntentId);
 	mailSettlement(settled, origin);
-	if (settled.change === 'refunded') {
+	// the webhook may have applied the refund first; what counts is the payment's state now
+	const now = await db.query.payments.findFirst({ where: eq(payments.id, payment.id), columns: { status: true } });
+	if (settled.change === 'refunded' || now?.status === 'refunded') {
 		if (await isEnrolled(db, payment.userId, payment.courseId)) {
 			return { ok: true, message: 'Refunded. The learner keeps access: another payment or a grant still covers this course. They get an e-mail.' };
 		}
