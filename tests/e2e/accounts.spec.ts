@@ -1,5 +1,6 @@
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
+import { fillSignUp, linkInMailTo, signUpAndConfirm } from './support/sign-up';
 
 type Demo = { role: string; email: string; password: string };
 const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
@@ -10,15 +11,6 @@ async function signIn(page: Page, email: string, password: string) {
 	await page.getByLabel('E-mail', { exact: true }).fill(email);
 	await page.getByLabel('Password', { exact: true }).fill(password);
 	await page.getByRole('button', { name: 'Sign in' }).click();
-}
-
-async function signUp(page: Page, name: string, email: string, password: string) {
-	await page.goto('/signup');
-	await page.getByLabel('Your name').fill(name);
-	await page.getByLabel('E-mail', { exact: true }).fill(email);
-	await page.getByLabel('Password', { exact: true }).fill(password);
-	await page.getByRole('button', { name: 'Create account' }).click();
-	await expect(page).toHaveURL(/\/account\?notice=welcome$/);
 }
 
 /** An admin, in a browser of their own, opens the demo mailbox and reads the link out of the newest mail to `to`. */
@@ -39,18 +31,19 @@ async function linkFromMailbox(browser: Browser, to: string, subject: string): P
 
 const unique = () => `${Date.now()}-${Math.floor(Math.random() * 1e6)}`;
 
-test('sign up → verify from the mailbox → sign out → sign in', async ({ page, browser }) => {
+test('sign up → verify from the mailbox, which signs in → sign out → sign in', async ({ page, browser }) => {
 	const email = `e2e-${unique()}@test.example`;
 	const password = 'sandbags in the wind';
-	await signUp(page, 'Kai Rowan', email, password);
-	await expect(page.getByText('not verified yet')).toBeVisible();
+	await fillSignUp(page, 'Kai Rowan', email, password);
+	// the form signs nobody in: the same page answers a new and a taken address
 	const header = page.getByRole('navigation', { name: 'Main' });
-	await expect(header.getByRole('link', { name: /Kai Rowan/ })).toBeVisible();
+	await expect(header.getByRole('link', { name: 'Sign in' })).toBeVisible();
 
 	const link = await linkFromMailbox(browser, email, 'Confirm your e-mail address for Stopwise');
 	await page.goto(link);
 	await page.getByRole('button', { name: 'Confirm my address' }).click();
 	await expect(page.getByText(`${email} is verified`)).toBeVisible();
+	await expect(header.getByRole('link', { name: /Kai Rowan/ })).toBeVisible();
 
 	await header.getByRole('button', { name: 'Sign out' }).click();
 	await expect(page).toHaveURL(/\/signin/);
@@ -66,6 +59,13 @@ test('sign up → verify from the mailbox → sign out → sign in', async ({ pa
 	await expect(page.getByRole('heading', { name: 'This link no longer works' })).toBeVisible();
 });
 
+test('signing up with a taken address answers exactly as for a new one; the owner is told by e-mail', async ({ page }) => {
+	const { email } = account('learner');
+	await fillSignUp(page, 'Not The Owner', email, 'someone else entirely');
+	await expect(page.getByTestId('signup-sent')).toContainText('If the address is new to Stopwise');
+	expect(await linkInMailTo(email, /^Someone tried to create a Stopwise account/)).toMatch(/\/signin$/);
+});
+
 test('a wrong password gets one plain message next to the form', async ({ page }) => {
 	await signIn(page, account('learner').email, 'not the password');
 	await expect(page.getByRole('alert')).toHaveText('That e-mail address and password do not match an account.');
@@ -74,7 +74,7 @@ test('a wrong password gets one plain message next to the form', async ({ page }
 
 test('password reset end to end; the link works once', async ({ page, browser }) => {
 	const email = `e2e-reset-${unique()}@test.example`;
-	await signUp(page, 'Noor Vale', email, 'first passphrase here');
+	await signUpAndConfirm(page, 'Noor Vale', email, 'first passphrase here');
 	await page.getByRole('navigation', { name: 'Main' }).getByRole('button', { name: 'Sign out' }).click();
 
 	await page.getByRole('link', { name: 'Forgot your password?' }).click();

@@ -1,6 +1,7 @@
 // Paid enrolment in the browser: a fresh learner pays on the local fake's payment page and opens a paid lesson;
 // a declined card leaves another without access and with a clear message.
 import { expect, test, type Page } from '@playwright/test';
+import { signUpAndConfirm } from './support/sign-up';
 
 const course = '/courses/daylight-flash-for-action';
 const paidLesson = `${course}/equivalent-exposures`;
@@ -9,12 +10,8 @@ const unique = () => `${Date.now()}-${Math.floor(Math.random() * 1e6)}`;
 /** Fresh learners (test runs share one database), so nobody else's enrolment is touched. */
 async function signUp(page: Page, name: string) {
 	const email = `e2e-pay-${unique()}@test.example`;
-	await page.goto('/signup');
-	await page.getByLabel('Your name').fill(name);
-	await page.getByLabel('E-mail', { exact: true }).fill(email);
-	await page.getByLabel('Password', { exact: true }).fill('strobes in the rain');
-	await page.getByRole('button', { name: 'Create account' }).click();
-	await expect(page).toHaveURL(/\/account\?notice=welcome$/);
+	await signUpAndConfirm(page, name, email, 'strobes in the rain');
+	await expect(page.getByText(`${email} is verified`)).toBeVisible();
 	return email;
 }
 

@@ -3,6 +3,7 @@
 import { expect as baseExpect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
 import postgres from 'postgres';
+import { signUpAndConfirm } from './support/sign-up';
 
 type Demo = { role: string; email: string; password: string };
 const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
@@ -90,10 +91,8 @@ test('sign-up returns to the course; a learner then lands on the lesson they ope
 	await page.getByRole('link', { name: 'Create an account' }).click();
 	await expect(page).toHaveURL(/\/signup\?redirectTo=%2Fcourses%2Fdaylight-flash-for-action$/);
 	await expect(page.getByTestId('signup-reason')).toHaveText('Create an account to enrol in this course.');
-	await page.getByLabel('Your name').fill('Ines Marlow');
-	await page.getByLabel('E-mail', { exact: true }).fill(email);
-	await page.getByLabel('Password', { exact: true }).fill(password);
-	await page.getByRole('button', { name: 'Create account' }).click();
+	// the mailed link confirms the address, signs in and comes back to the course
+	await signUpAndConfirm(page, 'Ines Marlow', email, password);
 	await expect(page).toHaveURL(new RegExp(`/courses/${COURSE}$`));
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Daylight Flash for Action');
 

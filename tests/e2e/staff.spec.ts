@@ -2,6 +2,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
 import postgres from 'postgres';
+import { signUpAndConfirm } from './support/sign-up';
 import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
 
 type Demo = { role: string; email: string; password: string };
@@ -101,12 +102,8 @@ test('a refund appears in the audit log with its reason; the log filters and dow
 	test.setTimeout(90_000);
 	// a fresh learner pays on the fake's payment page
 	const email = `e2e-audit-${stamp}@test.example`;
-	await page.goto('/signup');
-	await page.getByLabel('Your name').fill(`Audit Payer ${stamp}`);
-	await page.getByLabel('E-mail', { exact: true }).fill(email);
-	await page.getByLabel('Password', { exact: true }).fill('strobes in the rain');
-	await page.getByRole('button', { name: 'Create account' }).click();
-	await expect(page).toHaveURL(/\/account\?notice=welcome$/);
+	await signUpAndConfirm(page, `Audit Payer ${stamp}`, email, 'strobes in the rain');
+	await expect(page.getByText(`${email} is verified`)).toBeVisible();
 	await page.goto('/courses/daylight-flash-for-action');
 	await page.getByRole('button', { name: 'Enrol — $149.00' }).click();
 	await page.getByLabel('Card number').fill('4242 4242 4242 4242');

@@ -22,9 +22,14 @@ const resendSpacingMs = 60_000;
 
 const hours = (p: TokenPurpose) => Math.round(tokenLifetimeMinutes[p] / 60);
 
-export async function sendVerificationMail(user: { id: string; email: string; name: string }, origin: string): Promise<SendResult> {
+/** `back`: a safe path the confirmation page goes on to (the page the visitor was on when they signed up). */
+export async function sendVerificationMail(
+	user: { id: string; email: string; name: string },
+	origin: string,
+	back = ''
+): Promise<SendResult> {
 	const token = await issueToken(user.id, 'verify_email', user.email);
-	const href = `${origin}/verify?token=${token}`;
+	const href = `${origin}/verify?token=${token}${back ? `&redirectTo=${encodeURIComponent(back)}` : ''}`;
 	return sendLetter(verifyEmailLetter(user.email, user.name, href, hours('verify_email')));
 }
 
@@ -62,10 +67,14 @@ export function requestPasswordReset(email: string, origin: string): Promise<voi
  * after the answer, which is the same either way, so neither the page nor its timing says whether the address
  * has an account.
  */
-export function mailAfterSignUp(outcome: { created: true; user: { id: string; email: string; name: string } } | { created: false; email: string }, origin: string): void {
+export function mailAfterSignUp(
+	outcome: { created: true; user: { id: string; email: string; name: string } } | { created: false; email: string },
+	origin: string,
+	back = ''
+): void {
 	sendInBackground('sign-up mail', async () => {
 		if (outcome.created) {
-			await sendVerificationMail(outcome.user, origin);
+			await sendVerificationMail(outcome.user, origin, back);
 			return;
 		}
 		const owner = await findUserByEmail(outcome.email);
@@ -74,7 +83,8 @@ export function mailAfterSignUp(outcome: { created: true; user: { id: string; em
 		const keys = [{ kind: 'notice' as const, key: `signup-notice:${owner.email}` }];
 		if ((await secondsUntilUnlocked(keys)) > 0) return;
 		await recordFailure(keys);
-		await sendLetter(existingAccountLetter(owner.email, owner.name, `${origin}/signin`));
+		const signIn = `${origin}/signin${back ? `?redirectTo=${encodeURIComponent(back)}` : ''}`;
+		await sendLetter(existingAccountLetter(owner.email, owner.name, signIn));
 	});
 }
 

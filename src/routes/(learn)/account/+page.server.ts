@@ -11,14 +11,6 @@ import { sendLetter } from '$lib/server/mail';
 import { passwordChangedNotice } from '$lib/server/mail-letters';
 import type { Actions, PageServerLoad } from './$types';
 
-const notices: Record<string, { text: string; tone: 'ok' | 'error' }> = {
-	welcome: { text: 'Welcome to Stopwise. We sent you a link to confirm your e-mail address.', tone: 'ok' },
-	'welcome-mail-failed': {
-		text: 'Welcome to Stopwise. We could not send the confirmation e-mail just now; use "Send the link again" below.',
-		tone: 'error'
-	}
-};
-
 export const load: PageServerLoad = async (event) => {
 	const user = requireUser(event);
 	const [emailForm, passwordForm, sessions] = await Promise.all([
@@ -30,8 +22,7 @@ export const load: PageServerLoad = async (event) => {
 		account: { name: user.name, email: user.email, emailVerified: user.emailVerified, roles: user.roles },
 		sessions,
 		emailForm,
-		passwordForm,
-		notice: notices[event.url.searchParams.get('notice') ?? ''] ?? null
+		passwordForm
 	};
 };
 
