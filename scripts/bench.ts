@@ -4,9 +4,10 @@ import { reviewQueueBench } from './bench/review-queue';
 import { uploadToVerdictBench } from './bench/upload-to-verdict';
 import { healthUnderGradingBench } from './bench/health-under-grading';
 import { signInTimingBench } from './bench/sign-in-timing';
+import { signUpTimingBench } from './bench/sign-up-timing';
 import type { Bench } from './bench/timing';
 
-const BENCHES: Bench[] = [gradingBench, reviewQueueBench, uploadToVerdictBench, healthUnderGradingBench, signInTimingBench];
+const BENCHES: Bench[] = [gradingBench, reviewQueueBench, uploadToVerdictBench, healthUnderGradingBench, signInTimingBench, signUpTimingBench];
 
 async function main(): Promise<number> {
 	let missed = 0;
