@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { wcagLuminance } from 'culori';
-import { measurePixels, MID_GREY, stopsFromMidGrey, type RgbImage } from './pixels';
+import { measurePixels, measurePixelsInSlices, MID_GREY, SLICE_PIXELS, stopsFromMidGrey, type RgbImage } from './pixels';
 import { toPixelBounds, type Box } from './region';
 
 type Rgb8 = [number, number, number];
@@ -116,5 +116,27 @@ describe('stopsFromMidGrey', () => {
 		expect(stopsFromMidGrey(0.045)).toBeCloseTo(-2, 12);
 		expect(stopsFromMidGrey(0)).toBe(stopsFromMidGrey(1e-9));
 		expect(stopsFromMidGrey(0)).toBeGreaterThan(-10);
+	});
+});
+
+describe('measurePixelsInSlices', () => {
+	it('measures exactly what the single pass does, pausing between slices of rows', async () => {
+		// a frame of several slices, with a lit subject, clipped and crushed pixels and a gradient
+		const width = 700;
+		const height = 400;
+		const frame = image(width, height, (x, y) => {
+			if (x % 97 === 0) return [255, 255, 255];
+			if (y % 89 === 0) return [0, 0, 0];
+			const lit = x > width * 0.3 && x < width * 0.7 && y > height * 0.2 && y < height * 0.8;
+			return lit ? [190, 170 + (x % 20), 150] : [40 + (y % 50), 60, 90 + (x % 30)];
+		});
+		let pauses = 0;
+		const sliced = await measurePixelsInSlices(frame, BOX, async () => {
+			pauses++;
+		});
+		expect(sliced).toEqual(measurePixels(frame, BOX));
+		const rowsPerSlice = Math.floor(SLICE_PIXELS / width);
+		expect(pauses).toBe(Math.ceil(height / rowsPerSlice) - 1);
+		expect(pauses).toBeGreaterThan(1);
 	});
 });

@@ -3,7 +3,7 @@ import { FrameReadError, malformed } from './errors';
 import { checkInput, decodeForAnalysis, readEmbeddedExif, readHeader, resolveLimits, type ImageHeader, type InputLimits } from './decode';
 import type { FileKind } from './detect';
 import { emptyExifReport, looksLikeCameraRaw, normaliseExif, readExifTags, type ExifReport, type ExifTags } from './exif';
-import { measurePixels, type PixelMeasures } from './pixels';
+import { measurePixelsInSlices, type PixelMeasures } from './pixels';
 import { checkBox, DEFAULT_SUBJECT_BOX, type Box } from './region';
 
 export interface PixelReport extends PixelMeasures {
@@ -122,7 +122,8 @@ async function readChecked(bytes: Uint8Array, options: ReadFrameOptions): Promis
 	}
 
 	const image = await decoding;
-	const measures = measurePixels(image, subjectBox);
+	// in slices: grading runs inside the web process by default, and requests must not wait for a whole frame
+	const measures = await measurePixelsInSlices(image, subjectBox);
 	const exif = tags ? normaliseExif(tags) : emptyExifReport();
 	if (!exif.found && notes.length === 0) notes.push('This file carries no camera settings (Exif); criteria that need them cannot be checked.');
 	return {

@@ -1,12 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { version } from '$app/environment';
-import { sql } from 'drizzle-orm';
-import { db } from '$lib/server/db';
+import { checkHealth } from '$lib/server/health';
 
 export const GET = async () => {
-	const dbOk = await db
-		.execute(sql`select 1`)
-		.then(() => true)
-		.catch(() => false);
-	return json({ ok: dbOk, db: dbOk ? 'up' : 'down', version }, { status: dbOk ? 200 : 503 });
+	const health = await checkHealth();
+	return json({ ...health, version }, { status: health.ok ? 200 : 503 });
 };
