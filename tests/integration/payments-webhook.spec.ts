@@ -106,6 +106,25 @@ describe('a completed checkout', () => {
 		expect((await listMail()).filter((m) => m.to.includes(learner.email) && /receipt/.test(m.subject))).toHaveLength(1);
 	});
 
+	test('a completed checkout whose payment is not paid yet (a delayed method) enrols nobody and sends no receipt', async () => {
+		const { learner, user, payment, session } = await learnerWithCheckout();
+		const unpaid = signedEvent('checkout.session.completed', { ...session, payment_status: 'unpaid' });
+		expect(await postWebhook(unpaid.body, unpaid.header)).toMatchObject({ status: 200 });
+		expect(await enrolmentsOf(learner.id)).toHaveLength(0);
+		expect(await hasCourseAccess(user, courseId)).toBe(false);
+		expect((await paymentRow(payment.id)).status).toBe('pending');
+		// the success page reading the same session does not enrol either
+		await settleRetrievedSession({ ...session, payment_status: 'unpaid' } as never, 'http://localhost:4173');
+		expect(await enrolmentsOf(learner.id)).toHaveLength(0);
+		await backgroundMailDrained();
+		expect((await listMail()).filter((m) => m.to.includes(learner.email))).toHaveLength(0);
+
+		// when the money arrives, the paid session enrols as usual
+		const paid = signedEvent('checkout.session.completed', session);
+		expect((await postWebhook(paid.body, paid.header)).status).toBe(200);
+		expect(await hasCourseAccess(user, courseId)).toBe(true);
+	});
+
 	test('five simultaneous deliveries of one event store it once and enrol once', async () => {
 		const { learner, payment, session } = await learnerWithCheckout();
 		const completed = signedEvent('checkout.session.completed', session);
