@@ -31,7 +31,9 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
 	'lesson.publish': 'Lesson published',
 	'lesson.restore': 'Lesson version restored',
 	'coupon.create': 'Coupon created',
-	'coupon.change': 'Coupon changed'
+	'coupon.change': 'Coupon changed',
+	'plan.approve': 'Shoot Plan approved',
+	'plan.return': 'Shoot Plan sent back'
 };
 
 /**

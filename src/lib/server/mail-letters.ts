@@ -92,6 +92,21 @@ export function critiqueLetter(to: string, name: string, r: { assignment: string
 	);
 }
 
+export function shootPlanLetter(to: string, name: string, r: { assignment: string; approved: boolean; note: string; href: string }): Letter {
+	return compose(
+		to,
+		r.approved ? `Your Shoot Plan is approved: ${r.assignment}` : `Your Shoot Plan came back with a note: ${r.assignment}`,
+		[
+			`Hello ${name},`,
+			r.approved
+				? `A mentor approved your Shoot Plan for "${r.assignment}". Uploads are open: shoot it as planned, and keep to the venue's rules on the day.`
+				: `A mentor read your Shoot Plan for "${r.assignment}" and asks you to change it before you shoot.`,
+			...(r.note ? [`The mentor's note: ${r.note}`] : [])
+		],
+		{ href: r.href, label: r.approved ? 'Open the Assignment' : 'Revise the plan' }
+	);
+}
+
 export function passwordChangedNotice(to: string, name: string): Letter {
 	return compose(to, 'Your Stopwise password was changed', [
 		`Hello ${name},`,

@@ -9,6 +9,7 @@ import type { AuthUser } from '../auth';
 import { findAssignment } from './assignment';
 import { attemptFolder } from './keys';
 import { queueGrading } from './queue';
+import { planGateMessage } from '../shoot-plans/read';
 import { lightPlanProblem, specWithStatedMotion } from './stated';
 import { checkFrames, writeFrames, type FrameProblems } from './store-frames';
 import type { UploadForm } from './upload-form';
@@ -51,6 +52,8 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 	const spec = specWithStatedMotion(assignment.spec, form.stated);
 	const planProblem = lightPlanProblem(assignment.spec, form.lightPlan);
 	if (planProblem) return { kind: 'invalid', message: planProblem, frames: {} };
+	const planGate = await planGateMessage(assignment.spec, user.id, assignment.id);
+	if (planGate) return { kind: 'invalid', message: planGate, frames: {} };
 
 	const { frames, problems } = await checkFrames(assignment.spec.frames, form.files);
 	if (Object.keys(problems).length > 0) {

@@ -353,6 +353,37 @@ export const verdictOverrides = pgTable(
 	(t) => [index('verdict_overrides_attempt_idx').on(t.attemptId)]
 );
 export type VerdictOverride = typeof verdictOverrides.$inferSelect;
+
+export const shootPlanStatuses = ['waiting', 'approved', 'returned'] as const;
+export type ShootPlanStatus = (typeof shootPlanStatuses)[number];
+type PlanPoint = { x: number; y: number };
+
+/** A learner's plan for a shoot, filed before an Assignment's uploads open; the newest one per learner and Assignment decides. */
+export const shootPlans = pgTable(
+	'shoot_plans',
+	{
+		id: serial('id').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		assignmentId: integer('assignment_id')
+			.notNull()
+			.references(() => assignments.id, { onDelete: 'cascade' }),
+		lightPlan: jsonb('light_plan').$type<{ camera: PlanPoint; subject: PlanPoint; lights: PlanPoint[] }>().notNull(),
+		/** the settings as the learner wrote them: shutter '1/250', aperture 'f/8', ISO, flash in words */
+		settings: jsonb('settings').$type<{ shutter: string; aperture: string; iso: number; flash: string }>().notNull(),
+		story: text('story').notNull(),
+		/** the checklist lines as they read when the learner confirmed them */
+		checklist: jsonb('checklist').$type<string[]>().notNull(),
+		status: text('status', { enum: shootPlanStatuses }).notNull().default('waiting'),
+		mentorId: text('mentor_id').references(() => users.id, { onDelete: 'set null' }),
+		mentorNote: text('mentor_note').notNull().default(''),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		decidedAt: timestamp('decided_at', { withTimezone: true })
+	},
+	(t) => [index('shoot_plans_user_assignment_idx').on(t.userId, t.assignmentId, t.createdAt), index('shoot_plans_status_idx').on(t.status, t.createdAt)]
+);
+export type ShootPlan = typeof shootPlans.$inferSelect;
 // ---- end attempts ----
 
 // ---- enrolment (issue 8): payments, webhook events, enrolments, coupons ----
@@ -448,7 +479,9 @@ export const auditActions = [
 	'lesson.publish',
 	'lesson.restore',
 	'coupon.create',
-	'coupon.change'
+	'coupon.change',
+	'plan.approve',
+	'plan.return'
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 

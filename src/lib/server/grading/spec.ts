@@ -226,6 +226,11 @@ export const assignmentSpecSchema = z
 		syncSpeed: seconds.optional(),
 		/** The upload must carry a Light Plan with at least this many lights (for a mentor judging light placement). */
 		lightPlan: z.object({ minLights: z.number().int().min(1).max(3) }).strict().optional(),
+		/** Uploads open only after a mentor approves the learner's Shoot Plan (Light Plan, settings, safety checklist). */
+		shootPlan: z
+			.object({ checklist: z.array(z.string().trim().min(3).max(300)).min(1).max(12).optional() })
+			.strict()
+			.optional(),
 		criteria: z.array(criterionSchema).min(1).max(40),
 		/** What the mentor scores (rubric item ids); without it, defaults follow the kinds of criteria. */
 		rubric: z.array(z.enum(RUBRIC_IDS)).min(1).max(RUBRIC_IDS.length).optional()
