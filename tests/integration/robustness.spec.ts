@@ -30,6 +30,8 @@ const audiences: Record<string, Record<string, Audience>> = {
 	'/(mentor)/mentor/attempts/[id]': { pin: 'mentor', unpin: 'mentor', review: 'mentor' },
 	'/(learn)/account': { changeEmail: 'signed-in', changePassword: 'signed-in', resendVerification: 'signed-in', signOutEverywhere: 'signed-in' },
 	'/(learn)/courses/[course]/[lesson]': { complete: 'signed-in' },
+	'/(learn)/courses/[course]/[lesson]/assignments/[slug]': { filePlan: 'signed-in' },
+	'/(mentor)/mentor/plans/[id=integer]': { decide: 'mentor' },
 	'/(author)/author/lessons/[id=integer]': { save: 'author', publish: 'author', unpublish: 'author', settings: 'author', delete: 'author' },
 	'/(author)/author/lessons/[id=integer]/history': { restore: 'author' },
 	'/(author)/author/lessons/[id=integer]/assignments/new': { default: 'author' },

@@ -28,7 +28,7 @@ async function shootPlanState(userId: string, assignment: { id: number; spec: As
 	const form = await superValidate(
 		plan && plan.status !== 'approved'
 			? { lightPlan: JSON.stringify(plan.lightPlan), ...plan.settings, story: plan.story, checked: [] }
-			: { lightPlan: '', shutter: '', aperture: '', flash: '', story: '', checked: [] },
+			: { lightPlan: '', shutter: '', aperture: '', iso: 100, flash: '', story: '', checked: [] },
 		zod4(shootPlanSchema),
 		{ id: 'shoot-plan', errors: false }
 	);
