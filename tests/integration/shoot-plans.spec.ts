@@ -111,7 +111,7 @@ describe('a Shoot Plan before the uploads', () => {
 
 	test('a mentor sees it waiting, must say why to send it back, and a decision on a version they did not read is refused', async () => {
 		const listed = await throughHooks(makeEvent({ path: '/mentor/plans', cookies: mentorCookies }), (e) => plansPage.load(e as never));
-		const plans = (listed as { value: { plans: { id: number; learner: string }[] } }).value.plans;
+		const plans = (listed as unknown as { value: { plans: { id: number; learner: string }[] } }).value.plans;
 		const [row] = await plansOf(learner.id);
 		const name = (await db.query.users.findFirst({ where: eq(users.id, learner.id) }))!.name;
 		expect(plans.find((p) => p.id === row.id)).toMatchObject({ learner: name, assignment: 'Rembrandt in motion' });
@@ -163,7 +163,7 @@ describe('who decides', () => {
 		const opened = await throughHooks(makeEvent({ path: `/mentor/plans/${row.id}`, cookies: own, params: { id: String(row.id) } }), (e) => planPage.load(e as never));
 		expect(opened).toMatchObject({ kind: 'error', status: 403 });
 		const listed = await throughHooks(makeEvent({ path: '/mentor/plans', cookies: own }), (e) => plansPage.load(e as never));
-		expect((listed as { value: { plans: { id: number }[] } }).value.plans.some((p) => p.id === row.id)).toBe(false);
+		expect((listed as unknown as { value: { plans: { id: number }[] } }).value.plans.some((p) => p.id === row.id)).toBe(false);
 		expect(await decide(row.id, { decision: 'approve', note: '', seen }, learnerCookies)).toMatchObject({ kind: 'error', status: 403 });
 		expect((await plansOf(mentorLearner.id))[0].status).toBe('waiting');
 	});
