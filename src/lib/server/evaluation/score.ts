@@ -45,10 +45,14 @@ export interface CriterionScore {
 	kind: string;
 	unit: string;
 	n: number;
-	/** Median and 95th percentile of |measured − true|, over the results with a measured value. */
+	/** Median and 95th percentile of |measured − true|, over the results with a measured value (not a mere bound). */
 	medianError: number;
 	p95Error: number;
 	measuredCount: number;
+	/** 95th percentile of |measured − true| over the results that passed or failed (the ones no mentor checks). */
+	p95Decided: number;
+	/** Results whose measure was only a bound (a blown-out subject): not counted in the errors. */
+	bounds: number;
 	falsePasses: number;
 	falseFails: number;
 	unknowns: number;
@@ -65,6 +69,8 @@ function quantile(values: number[], q: number): number {
 export function score(outcomes: CaseOutcome[]): CriterionScore[] {
 	return Object.entries(TRUTH).map(([kind, { unit, judge }]) => {
 		const errors: number[] = [];
+		const decided: number[] = [];
+		let bounds = 0;
 		let falsePasses = 0;
 		let falseFails = 0;
 		let unknowns = 0;
@@ -83,9 +89,26 @@ export function score(outcomes: CaseOutcome[]): CriterionScore[] {
 				wrong.push(`${o.case.id} (false fail)`);
 			}
 			const m = kind === 'subject-clipping' ? (r.evidence?.blownPercent ?? null) : typeof r.measured === 'number' ? r.measured : null;
-			if (m !== null && t.value !== null && Number.isFinite(m)) errors.push(Math.abs(m - t.value));
+			if (r.evidence?.lowerBound && kind !== 'subject-clipping') bounds++;
+			else if (m !== null && t.value !== null && Number.isFinite(m)) {
+				errors.push(Math.abs(m - t.value));
+				if (r.verdict !== 'unknown') decided.push(Math.abs(m - t.value));
+			}
 		}
-		return { kind, unit, n: outcomes.length, medianError: quantile(errors, 0.5), p95Error: quantile(errors, 0.95), measuredCount: errors.length, falsePasses, falseFails, unknowns, wrong };
+		return {
+			kind,
+			unit,
+			n: outcomes.length,
+			medianError: quantile(errors, 0.5),
+			p95Error: quantile(errors, 0.95),
+			measuredCount: errors.length,
+			p95Decided: quantile(decided, 0.95),
+			bounds,
+			falsePasses,
+			falseFails,
+			unknowns,
+			wrong
+		};
 	});
 }
 
@@ -97,11 +120,13 @@ export function formatScores(scores: CriterionScore[]): string[] {
 		String(s.measuredCount),
 		s.medianError.toFixed(2),
 		s.p95Error.toFixed(2),
+		Number.isFinite(s.p95Decided) ? s.p95Decided.toFixed(2) : '–',
+		String(s.bounds),
 		String(s.falsePasses),
 		`${s.falseFails} (${((100 * s.falseFails) / s.n).toFixed(1)} %)`,
 		String(s.unknowns)
 	]);
-	const head = ['criterion', 'unit', 'measured', 'median err', 'p95 err', 'false passes', 'false fails', 'unknowns'];
+	const head = ['criterion', 'unit', 'measured', 'median err', 'p95 err', 'p95 decided', 'bounds', 'false passes', 'false fails', 'unknowns'];
 	const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i].length)));
 	const line = (cells: string[]) => cells.map((c, i) => c.padEnd(widths[i])).join('  ');
 	return [line(head), ...rows.map(line)];

@@ -23,6 +23,8 @@ export interface Evidence {
 	predictedLift?: number;
 	/** Percent of the flash-lit subject blown out. */
 	blownPercent?: number;
+	/** true when the lift is only a lower bound (most of the flash-lit subject is blown out). */
+	lowerBound?: boolean;
 }
 
 export interface CriterionResult {

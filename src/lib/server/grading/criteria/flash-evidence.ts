@@ -2,7 +2,7 @@
 import { describeFlash } from '../../analysis/index';
 import { formatStopAmount, formatStops } from '../format';
 import { frameWords, isResult, judge, lookupFrame, requirePair, type CriterionResult, type GradeContext } from '../result';
-import { shareFromLift } from '../pair/index';
+import { noLiftReason, shareFromLift } from '../pair/index';
 import { resolveFrames, type Criterion } from '../spec';
 
 type FlashEvidence = Extract<Criterion, { kind: 'flash-evidence' }>;
@@ -24,10 +24,10 @@ export function gradeFlashEvidence(c: FlashEvidence, ctx: GradeContext): Criteri
 	if (isResult(got)) return { ...got, missing, message: `${bit} ${got.message}` };
 	const lift = got.pair.lift;
 	if (lift === null) {
-		return { ...base, verdict: 'unknown', measured: null, missing, message: `${bit} The subject box could not be measured in both frames (clipped or too dark), so a mentor will confirm the flash.` };
+		return { ...base, verdict: 'unknown', measured: null, missing, message: `${bit} ${noLiftReason(got.pair)} A mentor will confirm the flash.` };
 	}
 	const u = got.pair.liftUncertainty;
-	const evidence = { lift, flashShare: shareFromLift(lift), uncertainty: u, blownPercent: 100 * got.pair.blownShare };
+	const evidence = { lift, flashShare: shareFromLift(lift), uncertainty: u, blownPercent: 100 * got.pair.blownShare, lowerBound: got.pair.liftIsLowerBound || undefined };
 	const judged = judge(lift, u, { atLeast: c.minLiftStops });
 	// most of the subject blown out: the lift is a lower bound, which can prove a pass but never a fail
 	const verdict = judged === 'fail' && got.pair.liftIsLowerBound ? 'unknown' : judged;

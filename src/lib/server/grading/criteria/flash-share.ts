@@ -1,7 +1,7 @@
 // flash-share: the flash's share of the subject's light (or the flash:ambient ratio), measured from the reference/lit pair.
 import { mix } from '../../../exposure/index';
 import { formatAmount, formatStops } from '../format';
-import { ratioFromLift, shareFromLift } from '../pair/index';
+import { noLiftReason, ratioFromLift, shareFromLift } from '../pair/index';
 import { isResult, judge, requirePair, type CriterionResult, type GradeContext } from '../result';
 import { resolveFrames, type Criterion } from '../spec';
 
@@ -24,21 +24,28 @@ export function gradeFlashShare(c: FlashShare, ctx: GradeContext): CriterionResu
 	if (isResult(got)) return got;
 	const lift = got.pair.lift;
 	if (lift === null) {
-		return { ...base, verdict: 'unknown', measured: null, missing: [], message: 'No part of the subject box could be measured in both frames (clipped or too dark), so a mentor will judge the balance by eye.' };
+		return { ...base, verdict: 'unknown', measured: null, missing: [], message: `${noLiftReason(got.pair)} A mentor will judge the balance by eye.` };
 	}
 	// judged on the lift, where the measuring uncertainty is even: a ratio r gives a lift of mix(0, r)
 	const lo = mix({ ambientStops: 0, flashStops: target - c.tolerance });
 	const hi = mix({ ambientStops: 0, flashStops: target + c.tolerance });
-	// most of the subject blown out: the lift is only a lower bound, so no verdict either way
-	const verdict = got.pair.liftIsLowerBound ? 'unknown' : judge(lift, got.pair.liftUncertainty, { atLeast: lo, atMost: hi });
+	// most of the subject blown out: the lift is only a lower bound, which can prove too much flash but nothing else
+	const u = got.pair.liftUncertainty;
+	const verdict = got.pair.liftIsLowerBound ? (lift - u > hi ? 'fail' : 'unknown') : judge(lift, u, { atLeast: lo, atMost: hi });
 	const ratio = ratioFromLift(lift);
 	const share = shareFromLift(lift);
 	const measured = Number.isFinite(ratio) ? ratio : null;
-	const evidence = { lift, flashShare: share, ratioStops: measured ?? undefined, uncertainty: got.pair.liftUncertainty };
+	const evidence = { lift, flashShare: share, ratioStops: measured ?? undefined, uncertainty: u, lowerBound: got.pair.liftIsLowerBound || undefined };
 	const wanted = c.share !== undefined ? `about ${percent(c.share)} from the flash` : `flash ${formatAmount(target)} stops over the ambient`;
-	const found = `The flash gave ${percent(share)} of the light on your subject (flash ${measured === null ? 'nothing' : `${measured >= 0 ? '' : '−'}${formatStops(measured)} ${measured >= 0 ? 'over' : 'under'} the ambient`}); the assignment asks for ${wanted}, ± ${formatAmount(c.tolerance)} stop.`;
+	const lowerBound = got.pair.liftIsLowerBound;
+	const found = `The flash gave ${lowerBound ? 'at least ' : ''}${percent(share)} of the light on your subject (flash ${measured === null ? 'nothing' : `${measured >= 0 ? '' : '−'}${formatStops(measured)} ${measured >= 0 ? 'over' : 'under'} the ambient`}); the assignment asks for ${wanted}, ± ${formatAmount(c.tolerance)} stop.`;
 	if (verdict === 'pass') return { ...base, verdict, measured, missing: [], evidence, message: `${found} A good balance of your two lights.` };
-	if (verdict === 'unknown') return { ...base, verdict, measured, missing: [], evidence, message: `${found} That is too close to the edge of the range to call, so a mentor will decide.` };
+	if (verdict === 'unknown') {
+		const why = lowerBound
+			? 'Most of the flash-lit subject is blown out (pure white), so that is only a lower bound and the balance cannot be measured; a mentor will decide.'
+			: 'That is too close to the edge of the range to call (or the camera’s tone curve leaves it uncertain), so a mentor will decide.';
+		return { ...base, verdict, measured, missing: [], evidence, message: `${found} ${why}` };
+	}
 	const more = lift < lo;
 	const change = measured === null ? null : Math.abs(target - measured);
 	return {

@@ -1,7 +1,7 @@
 // subject-lift: how many stops the flash lifted the subject above the ambient alone, against the same subject in the reference.
 import { formatStopAmount, formatStops } from '../format';
 import { liftAdvice, syncSpeedOf } from '../messages';
-import { shareFromLift, ratioFromLift } from '../pair/index';
+import { noLiftReason, shareFromLift, ratioFromLift } from '../pair/index';
 import { isResult, judge, requirePair, type CriterionResult, type GradeContext } from '../result';
 import { resolveFrames, type Criterion } from '../spec';
 import { predictedLift, blownNote } from './evidence';
@@ -15,7 +15,7 @@ export function gradeSubjectLift(c: SubjectLift, ctx: GradeContext): CriterionRe
 	if (isResult(got)) return got;
 	const { pair, lit } = got;
 	if (pair.lift === null) {
-		return { ...base, verdict: 'unknown', measured: null, missing: [], message: 'No part of the subject box could be measured in both frames (it is clipped or too dark), so a mentor will judge the lift by eye.' };
+		return { ...base, verdict: 'unknown', measured: null, missing: [], message: `${noLiftReason(pair)} A mentor will judge the lift by eye.` };
 	}
 	const lift = pair.lift;
 	const evidence = {
@@ -24,7 +24,8 @@ export function gradeSubjectLift(c: SubjectLift, ctx: GradeContext): CriterionRe
 		ratioStops: Number.isFinite(ratioFromLift(lift)) ? ratioFromLift(lift) : undefined,
 		uncertainty: pair.liftUncertainty,
 		predictedLift: predictedLift(ctx, got.ref, lit, lift) ?? undefined,
-		blownPercent: 100 * pair.blownShare
+		blownPercent: 100 * pair.blownShare,
+		lowerBound: pair.liftIsLowerBound || undefined
 	};
 	const judged = judge(lift, pair.liftUncertainty, { atLeast: c.minStops });
 	// most of the subject blown out: the lift is a lower bound, which can prove a pass but never a fail

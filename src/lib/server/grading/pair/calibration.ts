@@ -33,6 +33,18 @@ const MIN_PER_BIN = 3;
 const MIN_D_FOR_SLOPE = 0.6;
 // the slopes a camera curve can have relative to sRGB. common practice, no published source
 const SLOPE_RANGE = [0.4, 2.5] as const;
+/**
+ * How many times larger or smaller than in plain sRGB a camera's tone curve makes a drop read in the mid-tones, from
+ * flat to contrasty picture styles: a background drop beyond this against the settings is more than a curve.
+ * common practice, no published source
+ */
+export const CURVE_RANGE = [0.7, 1.45] as const;
+
+/** Whether a decoded drop against the settings' drop `d` is one a camera curve alone can explain. */
+export function curveCanExplain(drop: number, d: number): boolean {
+	const ratio = drop / d;
+	return ratio >= CURVE_RANGE[0] && ratio <= CURVE_RANGE[1];
+}
 
 interface Bin {
 	at: number;

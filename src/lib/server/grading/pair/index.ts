@@ -4,7 +4,7 @@ import type { Frame } from '../../analysis/index';
 import { measurePair, type PairMeasure, type PairResult } from './measure';
 
 export type { PairMeasure, PairResult } from './measure';
-export { calibrate } from './calibration';
+export { calibrate, curveCanExplain, CURVE_RANGE } from './calibration';
 
 // the same domain as a region's colour temperature (analysis/colour.ts): |Duv| ≤ 0.02 inside 1667–25 000 K
 const MAX_DUV = 0.02;
@@ -52,3 +52,10 @@ export function shareFromLift(lift: number): number {
 }
 
 export type { PairMeasure as Pair };
+
+/** Why the pair has no lift, as a sentence for the learner (the reference clipped on the subject, or nothing measurable). */
+export function noLiftReason(pair: PairMeasure): string {
+	return pair.liftUnknownReason
+		? `${pair.liftUnknownReason.charAt(0).toUpperCase()}${pair.liftUnknownReason.slice(1)}.`
+		: 'No part of the subject box could be measured in both frames (it is clipped or too dark).';
+}

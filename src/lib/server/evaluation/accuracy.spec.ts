@@ -1,0 +1,52 @@
+// The grader's accuracy on a small fixed part of the evaluation set: no false passes, no false fails, small errors.
+// The truth comes from the renderer, which builds each pair in linear light through its own camera pipeline (culori's
+// sRGB encoding, not the engine's), so a wrong curve or a biased measure in the grader turns these red.
+import { describe, expect, it } from 'vitest';
+import { makeCases } from './cases';
+import { runCase, score, type CaseOutcome } from './score';
+
+// one of each trouble: plain and camera-like curves, light and dark subjects, no flash, an edited frame, a clipped
+// sky, a gel with the white balance changed between frames, a subject blown out by the flash
+const PICKED = ['000', '007', '022', '052', '073', '091', '127'];
+const CASES = makeCases(128).filter((c) => PICKED.includes(c.id.slice(0, 3)));
+
+describe('evaluation subset', () => {
+	let outcomes: CaseOutcome[] = [];
+
+	it('renders and grades the picked pairs', async () => {
+		expect(CASES.map((c) => c.id.slice(0, 3))).toEqual(PICKED);
+		outcomes = await Promise.all(CASES.map(runCase));
+		expect(outcomes).toHaveLength(PICKED.length);
+	});
+
+	it('gives no false pass and no false fail on any criterion', () => {
+		const wrong = score(outcomes).flatMap((s) => s.wrong.map((w) => `${s.kind}: ${w}`));
+		expect(wrong).toEqual([]);
+	});
+
+	it('measures the flash’s lift within 0.15 stop of the truth (median), the truth inside every stated uncertainty', () => {
+		const lift = score(outcomes).find((s) => s.kind === 'subject-lift')!;
+		expect(lift.measuredCount).toBeGreaterThanOrEqual(4);
+		expect(lift.medianError).toBeLessThanOrEqual(0.15);
+		for (const o of outcomes) {
+			const r = o.criteria.find((c) => c.kind === 'subject-lift')!;
+			if (typeof r.measured !== 'number' || r.evidence?.lowerBound) continue;
+			expect(Math.abs(r.measured - o.truth.lift), o.case.id).toBeLessThanOrEqual(r.evidence!.uncertainty!);
+		}
+	});
+
+	it('says unknown, with its reason, where the reference is clipped on the subject', () => {
+		const clipped = outcomes.find((o) => o.case.id.startsWith('073'))!;
+		const lift = clipped.criteria.find((c) => c.kind === 'subject-lift')!;
+		expect(lift.verdict).toBe('unknown');
+		expect(lift.message).toMatch(/clipped to white in the reference frame/);
+	});
+
+	it('passes a blown-out subject on its lower bound but does not claim to know the balance', () => {
+		const hot = outcomes.find((o) => o.case.id.startsWith('127'))!;
+		const lift = hot.criteria.find((c) => c.kind === 'subject-lift')!;
+		expect(lift.evidence?.lowerBound).toBe(true);
+		expect(lift.verdict).toBe('pass');
+		expect(hot.criteria.find((c) => c.kind === 'flash-share')!.verdict).not.toBe('pass');
+	});
+});
