@@ -2,7 +2,8 @@
 import { describe, expect, it } from 'vitest';
 import { emptyExifReport } from '../analysis/exif';
 import { decodeFlash } from '../analysis/flash';
-import { exifRows, formatMeasured, formatTargetOf, formatValue } from './format-result';
+import { encodeGrid } from '../analysis/light-grid';
+import { clippedCells, evidenceRows, exifRows, formatMeasured, formatTargetOf, formatValue } from './format-result';
 
 describe('formatting criterion results', () => {
 	it('prints measured values in their units', () => {
@@ -57,5 +58,40 @@ describe('exifRows', () => {
 			Taken: 'not recorded',
 			Camera: 'Stopwise Test Bench One'
 		});
+	});
+});
+
+describe('the evidence beside a criterion', () => {
+	it('shows the flash’s share with its ratio, the measured level beside the predicted one, and the blown share', () => {
+		// a lift of 2 stops: 1 − 2^−2 = 75 % from the flash, flash log2(3) = 1.58 stops over the ambient (hand-worked)
+		const rows = evidenceRows({ evidence: { lift: 2, flashShare: 0.75, ratioStops: Math.log2(3), uncertainty: 0.14, predictedLift: 1.8, blownPercent: 12 } });
+		expect(rows.map((r) => r.key)).toEqual(['share', 'measured', 'predicted', 'blown']);
+		expect(rows[0].value).toBe('75 % (flash 1.6 stops over the ambient)');
+		expect(rows[1].value).toBe('+2 stops over the ambient alone (± 0.1 stops)');
+		expect(rows[2].value).toBe('+1.8 stops over the ambient alone');
+		expect(rows[3].value).toBe('12 %');
+	});
+
+	it('says "at least" for a lower bound and leaves out what was not measured', () => {
+		const rows = evidenceRows({ evidence: { lift: 2.4, flashShare: 0.81, lowerBound: true, blownPercent: 0.4 } });
+		expect(rows.map((r) => r.value)).toEqual(['at least 81 %', 'at least +2.4 stops over the ambient alone']);
+		expect(evidenceRows({})).toEqual([]);
+	});
+});
+
+describe('the clipped areas of a frame', () => {
+	it('lists the cells a quarter or more clipped, row by row, from the stored grid', () => {
+		const n = 6;
+		const grid = encodeGrid({
+			cols: 3,
+			rows: 2,
+			r: new Float32Array(n).fill(0.2),
+			g: new Float32Array(n).fill(0.2),
+			b: new Float32Array(n).fill(0.2),
+			clipped: Float32Array.from([0, 0.3, 0, 0.2, 0, 1]),
+			crushed: new Float32Array(n)
+		});
+		expect(clippedCells(grid)).toEqual({ cols: 3, rows: 2, cells: [1, 5] });
+		expect(clippedCells({ ...grid, clipped: 'AAA=' })).toBeNull();
 	});
 });

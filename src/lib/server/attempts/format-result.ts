@@ -1,6 +1,6 @@
 // Measured values and targets of criterion results, and Exif fields, as short strings for the verdict page.
 import { formatAperture, formatShutter } from '../../exposure/index';
-import { describeFlash, type ExifReport } from '../analysis/index';
+import { decodeGrid, describeFlash, type ExifReport } from '../analysis/index';
 import type { CriterionResult } from '../grading/index';
 import { formatOffset, formatStopAmount } from '../grading/format';
 import { formatDecimal, formatFocalLength, formatMired, formatMm, formatStops, roundTo } from '../../format/numbers';
@@ -88,4 +88,59 @@ export function exifRows(exif: ExifReport): ExifRow[] {
 		{ label: 'Taken', value: or(exif.dateTimeOriginal?.replace('T', ' ') ?? null) },
 		{ label: 'Camera', value: or([exif.make, exif.model].filter(Boolean).join(' ') || null) }
 	];
+}
+
+export interface EvidenceRow {
+	/** 'share', 'measured', 'predicted', 'blown': the page styles and pairs rows by it */
+	key: 'share' | 'measured' | 'predicted' | 'blown';
+	label: string;
+	value: string;
+}
+
+/**
+ * What the pixels showed beside a criterion: the flash's share of the subject's light, the measured subject level and
+ * the level predicted from what the learner used (side by side), and the blown-out share. Empty for settings criteria.
+ */
+export function evidenceRows(r: Pick<CriterionResult, 'evidence'>): EvidenceRow[] {
+	const e = r.evidence;
+	if (!e) return [];
+	const rows: EvidenceRow[] = [];
+	const atLeast = e.lowerBound ? 'at least ' : '';
+	if (e.flashShare !== undefined) {
+		const ratio =
+			e.ratioStops === undefined
+				? ''
+				: ` (flash ${formatStops(Math.abs(e.ratioStops))} ${e.ratioStops >= 0 ? 'over' : 'under'} the ambient)`;
+		rows.push({ key: 'share', label: 'Flash’s share of the light on the subject', value: `${atLeast}${Math.round(100 * e.flashShare)} %${ratio}` });
+	}
+	if (e.lift !== undefined) {
+		const doubt = e.uncertainty !== undefined && !e.lowerBound ? ` (± ${formatStops(e.uncertainty)})` : '';
+		rows.push({ key: 'measured', label: 'Subject level, measured', value: `${atLeast}${formatStops(e.lift, { signed: true })} over the ambient alone${doubt}` });
+	}
+	if (e.predictedLift !== undefined) {
+		rows.push({ key: 'predicted', label: 'Subject level, predicted from what you used', value: `${formatStops(e.predictedLift, { signed: true })} over the ambient alone` });
+	}
+	if (e.blownPercent !== undefined && e.blownPercent >= 1) {
+		rows.push({ key: 'blown', label: 'Flash-lit subject blown out', value: `${Math.round(e.blownPercent)} %` });
+	}
+	return rows;
+}
+
+export interface ClippedCells {
+	cols: number;
+	rows: number;
+	/** cell indices, row by row */
+	cells: number[];
+}
+
+// a measuring cell counts as a clipped area when this share of its pixels has a channel at the top codes
+const CLIPPED_CELL = 0.25;
+
+/** The clipped areas of a frame, from the light grid stored with its analysis; null without one. */
+export function clippedCells(grid: Parameters<typeof decodeGrid>[0]): ClippedCells | null {
+	const cells = decodeGrid(grid);
+	if (!cells) return null;
+	const out: number[] = [];
+	for (let i = 0; i < cells.clipped.length; i++) if (cells.clipped[i] >= CLIPPED_CELL) out.push(i);
+	return { cols: cells.cols, rows: cells.rows, cells: out };
 }

@@ -6,7 +6,7 @@ import { describeCriterion, rubricFor, rubricItem, validateSpec, type RubricItem
 import { canSeeAttempt, type Viewer } from './access';
 import { findAssignmentById } from './assignment';
 import { frameFileHref } from './files';
-import { exifRows, formatMeasured, formatTargetOf, type ExifRow } from './format-result';
+import { clippedCells, evidenceRows, exifRows, formatMeasured, formatTargetOf, type ClippedCells, type EvidenceRow, type ExifRow } from './format-result';
 import type { StoredAnalysis, StoredResult } from './grade-job';
 
 export interface FrameView {
@@ -19,6 +19,8 @@ export interface FrameView {
 	/** subject and background in stops from mid-grey */
 	stops: { subject: number; background: number } | null;
 	clipped: { highlights: number; shadows: number } | null;
+	/** where the frame is clipped to white: the measuring grid's size and the cells a quarter or more clipped */
+	clippedCells: ClippedCells | null;
 	notes: string[];
 	/** why the frame could not be read, when it could not */
 	problem: string | null;
@@ -32,6 +34,8 @@ export interface CriterionView {
 	measured: string;
 	target: string;
 	message: string;
+	/** what the pixels showed: the flash's share, measured beside predicted subject level, blown share */
+	evidence: EvidenceRow[];
 }
 
 export interface PinView {
@@ -81,6 +85,7 @@ function frameView(attemptId: string, row: typeof attemptFrames.$inferSelect): F
 		histogram: pixels?.histogram ?? null,
 		stops: pixels ? { subject: pixels.subject.stops, background: pixels.background.stops } : null,
 		clipped: pixels ? { highlights: pixels.clippedHighlights, shadows: pixels.clippedShadows } : null,
+		clippedCells: pixels ? clippedCells(pixels.grid) : null,
 		notes: frame?.notes ?? [],
 		problem: analysis && !analysis.ok ? analysis.message : null
 	};
@@ -95,7 +100,8 @@ function criteriaView(spec: unknown, result: StoredResult | null): CriterionView
 		asked: checked.ok && checked.spec.criteria[i] ? describeCriterion(checked.spec.criteria[i]) : r.kind,
 		measured: formatMeasured(r),
 		target: formatTargetOf(r),
-		message: r.message
+		message: r.message,
+		evidence: evidenceRows(r)
 	}));
 }
 
