@@ -7,6 +7,8 @@ import { db } from '$lib/server/db';
 import { attemptFrames, attempts, users } from '$lib/server/db/schema';
 import { dataDir, fileStore, useFileStore, type FileStore } from '$lib/server/storage';
 import { closeQueue, GRADE_QUEUE, openQueue } from '$lib/server/attempts/queue';
+import { gradeAttempt } from '$lib/server/attempts/grade-job';
+import { loadAttemptView } from '$lib/server/attempts/view';
 import { POST } from '../../src/routes/api/v1/attempts/+server';
 import { throughHooks } from './support/request-event';
 import { freshLearner, removeFreshPeople, signedInCookies } from './support/people';
@@ -58,6 +60,27 @@ describe('POST /api/v1/attempts', () => {
 		const boss = await openQueue();
 		const job = await boss.getJobById(GRADE_QUEUE, body.id);
 		expect(job?.data).toEqual({ attemptId: body.id });
+	});
+
+	test('keeps what flash was used with the attempt, and the verdict shows the level it predicts beside the measured one', async () => {
+		const data = uploadData({ assignment: ASSIGNMENT, submissionKey: key(), flashGn: '60', flashPower: '1/4', flashDistance: '3' }, pair);
+		const { status, body } = await post(data);
+		expect(status).toBe(201);
+		const row = await db.query.attempts.findFirst({ where: eq(attempts.id, body.id) });
+		expect(row?.flashUsed).toEqual({ gn: 60, power: 0.25, distance: 3 });
+		expect(await gradeAttempt(body.id)).toBe('graded');
+		const view = await loadAttemptView({ id: learner.id, roles: ['learner'] }, body.id);
+		expect(view?.flashUsed).toBe('guide number 60, 1/4 power, 3 m from the subject');
+		const lift = view?.criteria.find((c) => c.kind === 'subject-lift');
+		expect(lift?.evidence.map((e) => e.key)).toEqual(expect.arrayContaining(['measured', 'predicted']));
+	});
+
+	test('refuses a flash setting that cannot be one, and stores nothing', async () => {
+		const before = (await attemptIdsOf(learner.id)).length;
+		const { status, body } = await post(uploadData({ assignment: ASSIGNMENT, submissionKey: key(), flashPower: '3' }, pair));
+		expect(status).toBe(400);
+		expect(body.message).toContain('fraction of full power');
+		expect((await attemptIdsOf(learner.id)).length).toBe(before);
 	});
 
 	test('a double-clicked submit (same key, twice at once) makes one attempt and answers both with it', async () => {

@@ -45,7 +45,17 @@ export async function passingPair(size = { width: 600, height: 400 }, personal =
 }
 
 export function uploadData(
-	fields: { assignment?: string; submissionKey?: string; subjectBox?: string; lightPlan?: string; subjectSpeed?: string; subjectDistance?: string },
+	fields: {
+		assignment?: string;
+		submissionKey?: string;
+		subjectBox?: string;
+		lightPlan?: string;
+		subjectSpeed?: string;
+		subjectDistance?: string;
+		flashGn?: string;
+		flashPower?: string;
+		flashDistance?: string;
+	},
 	files: Record<string, Buffer | Blob>): FormData {
 	const data = new FormData();
 	for (const [k, v] of Object.entries(fields)) if (v !== undefined) data.append(k, v);

@@ -3,7 +3,7 @@ import { formatAperture, formatShutter } from '../../exposure/index';
 import { decodeGrid, describeFlash, type ExifReport } from '../analysis/index';
 import type { CriterionResult } from '../grading/index';
 import { formatOffset, formatStopAmount } from '../grading/format';
-import { formatDecimal, formatFocalLength, formatMired, formatMm, formatStops, roundTo } from '../../format/numbers';
+import { formatDecimal, formatFocalLength, formatMetres, formatMired, formatMm, formatStops, roundTo } from '../../format/numbers';
 
 /** '+1', '−0.7', '0': EV offsets with their sign, one decimal at most. */
 function signed(value: number): string {
@@ -143,4 +143,20 @@ export function clippedCells(grid: Parameters<typeof decodeGrid>[0]): ClippedCel
 	const out: number[] = [];
 	for (let i = 0; i < cells.clipped.length; i++) if (cells.clipped[i] >= CLIPPED_CELL) out.push(i);
 	return { cols: cells.cols, rows: cells.rows, cells: out };
+}
+
+/** 'guide number 60, ¼ power, 3.5 m from the subject'; null when nothing was stated. */
+export function describeFlashUsed(used: { gn?: number; power?: number; distance?: number } | null | undefined): string | null {
+	if (!used) return null;
+	const parts: string[] = [];
+	if (used.gn !== undefined) parts.push(`guide number ${formatDecimal(used.gn)}`);
+	if (used.power !== undefined) parts.push(used.power >= 1 ? 'full power' : `${formatPowerFraction(used.power)} power`);
+	if (used.distance !== undefined) parts.push(`${formatMetres(used.distance)} from the subject`);
+	return parts.length ? parts.join(', ') : null;
+}
+
+/** 0.25 → '1/4', 0.3 → '0.3': flash power as the flash shows it when it is one over a whole number. */
+function formatPowerFraction(power: number): string {
+	const over = 1 / power;
+	return Math.abs(over - Math.round(over)) < 1e-6 ? `1/${Math.round(over)}` : formatDecimal(power, 2);
 }

@@ -45,7 +45,7 @@ export async function gradeAttempt(attemptId: string, options: GradeOptions = {}
 		.update(attempts)
 		.set({ status: 'grading', gradeRuns: sql`${attempts.gradeRuns} + 1` })
 		.where(and(eq(attempts.id, attemptId), ne(attempts.status, 'graded')))
-		.returning({ spec: attempts.spec, subjectBox: attempts.subjectBox });
+		.returning({ spec: attempts.spec, subjectBox: attempts.subjectBox, flashUsed: attempts.flashUsed });
 	if (!claimed) {
 		const exists = await db.query.attempts.findFirst({ where: eq(attempts.id, attemptId), columns: { id: true } });
 		return exists ? 'already-graded' : 'missing';
@@ -62,7 +62,7 @@ export async function gradeAttempt(attemptId: string, options: GradeOptions = {}
 	let result;
 	try {
 		// the spec as stored with the attempt; grade() validates it again and throws SpecValidationError if broken
-		result = grade(claimed.spec as AssignmentSpecInput, frames);
+		result = grade(claimed.spec as AssignmentSpecInput, frames, { used: claimed.flashUsed ?? undefined });
 	} catch (error) {
 		if (!(error instanceof SpecValidationError)) throw error;
 		// a broken spec will not mend on retry: say so and hand the attempt to a mentor

@@ -73,7 +73,8 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 					submissionKey: form.submissionKey,
 					spec,
 					subjectBox: form.subjectBox,
-					lightPlan: form.lightPlan
+					lightPlan: form.lightPlan,
+					flashUsed: form.flashUsed
 				})
 				.onConflictDoNothing({ target: [attempts.userId, attempts.submissionKey] })
 				.returning({ id: attempts.id });

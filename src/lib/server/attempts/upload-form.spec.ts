@@ -46,4 +46,12 @@ describe('readUploadForm', () => {
 		expect(readUploadForm(form({ ...base, subjectSpeed: 'quick' }))).toMatchObject({ ok: false, message: expect.stringContaining("subject's speed") });
 		expect(readUploadForm(form({ ...base, subjectDistance: '-3' }))).toMatchObject({ ok: false, message: expect.stringContaining("subject's distance") });
 	});
+
+	it('reads what flash was used, all optional, and refuses what cannot be a setting', () => {
+		const read = readUploadForm(form({ ...base, flashGn: '60', flashPower: '1/4', flashDistance: '3,5' }));
+		expect(read).toMatchObject({ ok: true, form: { flashUsed: { gn: 60, power: 0.25, distance: 3.5 } } });
+		expect(readUploadForm(form({ ...base, flashGn: '', flashPower: ' ', flashDistance: '' }))).toMatchObject({ ok: true, form: { flashUsed: null } });
+		expect(readUploadForm(form({ ...base, flashPower: '2' }))).toMatchObject({ ok: false, message: expect.stringContaining('fraction of full power') });
+		expect(readUploadForm(form({ ...base, flashGn: 'lots' }))).toMatchObject({ ok: false, message: 'The guide number must be a number, or left empty.' });
+	});
 });

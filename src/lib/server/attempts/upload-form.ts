@@ -1,7 +1,9 @@
-// Reads the upload form (multipart): assignment, submission key, subject box, optional Light Plan, stated speed and distance, one file per frame.
+// Reads the upload form (multipart): assignment, submission key, subject box, optional Light Plan, stated speed and distance, what flash was used, one file per frame.
 import { checkBox, parseBox, DEFAULT_SUBJECT_BOX, type Box } from '../analysis/index';
 import { parseLightPlan, type AttachedLightPlan } from './light-plan';
 import { readStatedNumber, type StatedMotion } from './stated';
+import { flashUsedSchema } from '../../forms/flash-used';
+import type { FlashUsed } from '../grading/index';
 
 export interface UploadForm {
 	assignmentSlug: string;
@@ -10,6 +12,8 @@ export interface UploadForm {
 	lightPlan: AttachedLightPlan | null;
 	/** the subject's speed and distance, when the learner gave them (for blur criteria) */
 	stated: StatedMotion;
+	/** what the learner says they used (guide number, power, distance); null when nothing was given */
+	flashUsed: FlashUsed | null;
 	/** by frame name, from fields named `frame:<name>` */
 	files: Map<string, File>;
 }
@@ -47,11 +51,15 @@ export function readUploadForm(data: FormData): UploadFormResult {
 	const distance = readStatedNumber(text(data, 'subjectDistance'), 'distance');
 	if (!distance.ok) return { ok: false, message: distance.message };
 
+	const used = flashUsedSchema.safeParse({ gn: text(data, 'flashGn'), power: text(data, 'flashPower'), distance: text(data, 'flashDistance') });
+	if (!used.success) return { ok: false, message: used.error.issues[0].message };
+	const given = Object.fromEntries(Object.entries(used.data).filter(([, v]) => v !== undefined)) as FlashUsed;
+
 	const files = new Map<string, File>();
 	for (const [name, value] of data.entries()) {
 		if (!name.startsWith('frame:') || typeof value === 'string') continue;
 		files.set(name.slice('frame:'.length), value);
 	}
 	const stated = { speed: speed.value, distance: distance.value };
-	return { ok: true, form: { assignmentSlug, submissionKey, subjectBox, lightPlan: plan.plan, stated, files } };
+	return { ok: true, form: { assignmentSlug, submissionKey, subjectBox, lightPlan: plan.plan, stated, flashUsed: Object.keys(given).length ? given : null, files } };
 }

@@ -6,7 +6,7 @@ import { describeCriterion, rubricFor, rubricItem, validateSpec, type RubricItem
 import { canSeeAttempt, type Viewer } from './access';
 import { findAssignmentById } from './assignment';
 import { frameFileHref } from './files';
-import { clippedCells, evidenceRows, exifRows, formatMeasured, formatTargetOf, type ClippedCells, type EvidenceRow, type ExifRow } from './format-result';
+import { clippedCells, describeFlashUsed, evidenceRows, exifRows, formatMeasured, formatTargetOf, type ClippedCells, type EvidenceRow, type ExifRow } from './format-result';
 import type { StoredAnalysis, StoredResult } from './grade-job';
 
 export interface FrameView {
@@ -63,6 +63,8 @@ export interface AttemptView {
 	course: { slug: string; title: string };
 	subjectBox: { x: number; y: number; w: number; h: number };
 	lightPlan: unknown;
+	/** what the learner said they used, in words ('guide number 60, 1/4 power, 3 m from the subject'); null if nothing */
+	flashUsed: string | null;
 	frames: FrameView[];
 	criteria: CriterionView[];
 	critique: { text: string; rubric: Record<string, number>; mentor: string | null; updatedAt: Date } | null;
@@ -157,6 +159,7 @@ export async function loadAttemptView(viewer: Viewer, attemptId: string): Promis
 		course: { slug: assignment.course.slug, title: assignment.course.title },
 		subjectBox: a.subjectBox,
 		lightPlan: a.lightPlan,
+		flashUsed: describeFlashUsed(a.flashUsed),
 		frames: frameRows.map((f) => frameView(a.id, f)),
 		criteria: criteriaView(a.spec, a.result as StoredResult | null),
 		critique: critique ? { text: critique.critique.text, rubric: critique.critique.rubric, mentor: critique.mentor, updatedAt: critique.critique.updatedAt } : null,

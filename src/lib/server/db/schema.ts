@@ -260,6 +260,8 @@ export const attempts = pgTable(
 		spec: jsonb('spec').notNull(),
 		subjectBox: jsonb('subject_box').$type<{ x: number; y: number; w: number; h: number }>().notNull(),
 		lightPlan: jsonb('light_plan'),
+		/** what the learner says they used (guide number, power fraction, distance in m), for a predicted subject level */
+		flashUsed: jsonb('flash_used').$type<{ gn?: number; power?: number; distance?: number }>(),
 		/** criteria results from grade() */
 		result: jsonb('result'),
 		error: text('error'),
