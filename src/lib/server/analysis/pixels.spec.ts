@@ -19,6 +19,45 @@ const culoriY = ([r, g, b]: Rgb8) => wcagLuminance({ mode: 'rgb', r: r / 255, g:
 const BOX: Box = { x: 0.25, y: 0.25, w: 0.5, h: 0.5 };
 
 describe('measurePixels', () => {
+	it('sums every pixel into its own cell and region, for boxes and grids that do not line up (checked pixel by pixel)', () => {
+		// a random picture with clipped and crushed pixels; the expected means are summed naively, one pixel at a time,
+		// with culori's decode (IEC 61966-2-1), so a pixel counted twice, skipped or put in the wrong region shows
+		let seed = 7;
+		const next = () => ((seed = (seed * 1103515245 + 12345) >>> 0) >>> 8) % 256;
+		const img = image(97, 61, () => [next(), next(), next()]);
+		const box: Box = { x: 0.213, y: 0.301, w: 0.377, h: 0.419 };
+		const m = measurePixels(img, box);
+		const { x0, y0, x1, y1 } = toPixelBounds(box, 97, 61);
+		const sums = [
+			[0, 0, 0, 0, 0],
+			[0, 0, 0, 0, 0]
+		];
+		for (let y = 0; y < 61; y++) {
+			for (let x = 0; x < 97; x++) {
+				const [r, g, b] = img.data.subarray((y * 97 + x) * 3, (y * 97 + x) * 3 + 3);
+				const k = x >= x0 && x < x1 && y >= y0 && y < y1 ? 1 : 0;
+				if (r >= 250 || g >= 250 || b >= 250) sums[k][4]++;
+				else if (r > 2 || g > 2 || b > 2) {
+					const lin = wcagLuminance({ mode: 'rgb', r: r / 255, g: 0, b: 0 });
+					sums[k][0] += lin / 0.2126;
+					sums[k][1] += wcagLuminance({ mode: 'rgb', r: 0, g: g / 255, b: 0 }) / 0.7152;
+					sums[k][2] += wcagLuminance({ mode: 'rgb', r: 0, g: 0, b: b / 255 }) / 0.0722;
+					sums[k][3]++;
+				}
+			}
+		}
+		for (const [k, region] of [[1, m.subject], [0, m.background]] as const) {
+			const [r, g, b, n, clipped] = sums[k];
+			expect(region.rgb[0]).toBeCloseTo(r / n, 4);
+			expect(region.rgb[1]).toBeCloseTo(g / n, 4);
+			expect(region.rgb[2]).toBeCloseTo(b / n, 4);
+			expect(region.clippedShare).toBeCloseTo(clipped / region.pixelCount, 6);
+		}
+		expect(m.subject.pixelCount).toBe((x1 - x0) * (y1 - y0));
+		expect(m.subject.pixelCount + m.background.pixelCount).toBe(97 * 61);
+		expect(m.histogram.reduce((a, v) => a + v, 0)).toBe(97 * 61);
+	});
+
 	it('measures linear-light luminance as the culori reference does', () => {
 		for (const c of [[118, 118, 118], [200, 120, 40], [10, 60, 230], [3, 3, 3]] as Rgb8[]) {
 			const m = measurePixels(uniform(c), BOX);

@@ -85,12 +85,12 @@ describe('readFrame', () => {
 		expect(frame.pixels?.background.stops).toBeCloseTo(-2, 1);
 	});
 
-	it('shrinks large frames by a power of two on load (longest side at least 1024) and reports the full size', async () => {
+	it('shrinks large frames by a power of two on load (longest side at least 720) and reports the full size', async () => {
 		const bytes = await makeFrame({ width: 3000, height: 2000, subject: { stops: 0 }, background: { stops: -1 } });
 		const frame = await readFrame(bytes);
 		expect(frame.pixels).toMatchObject({ width: 3000, height: 2000 });
-		// 3000 / 2 = 1500 ≥ 1024 but 3000 / 4 = 750 is not: JPEG shrink-on-load by 2
-		expect(frame.pixels).toMatchObject({ analysisWidth: 1500, analysisHeight: 1000 });
+		// 3000 / 4 = 750 ≥ 720 but 3000 / 8 = 375 is not: JPEG shrink-on-load by 4
+		expect(frame.pixels).toMatchObject({ analysisWidth: 750, analysisHeight: 500 });
 		expect(frame.pixels?.background.stops).toBeCloseTo(-1, 1);
 	});
 
