@@ -261,7 +261,8 @@ async function main() {
 		return;
 	}
 	if (mode === 'bench') {
-		tsx('scripts/bench.ts');
+		// `npm run bench -- grading` passes the word on: only the benchmarks whose name holds it
+		tsx('scripts/bench.ts', process.argv.slice(3));
 		shutdown(0);
 	}
 	// test
