@@ -85,6 +85,13 @@ test('upload → verdict → mentor pin and override → critique and e-mail', a
 
 	await page.getByTestId('frame-input-lit').setInputFiles({ name: 'lit.jpg', mimeType: 'image/jpeg', buffer: lit });
 	await expect(page.getByTestId('subject-box')).toBeVisible();
+	// what flash was used (optional): a power that cannot be one is refused in the browser, with nothing sent
+	await page.getByTestId('used-gn').fill('60');
+	await page.getByTestId('used-power').fill('3');
+	await page.getByTestId('used-distance').fill('3');
+	await page.getByTestId('send-attempt').click();
+	await expect(page.getByText('The flash power must be a fraction of full power')).toBeVisible();
+	await page.getByTestId('used-power').fill('1/4');
 	await page.getByTestId('send-attempt').click();
 
 	await expect(page).toHaveURL(/\/attempts\/[0-9a-f-]{36}$/);
@@ -96,6 +103,16 @@ test('upload → verdict → mentor pin and override → critique and e-mail', a
 	await expect(page.getByTestId('exif-panel').nth(1)).toContainText('1/1500 s');
 	await expect(page.getByTestId('histogram')).toHaveCount(2);
 	await expect(page.getByTestId('stops-chart')).toBeVisible();
+	// the evidence: the flash's share, the measured subject level beside the one predicted from what was used
+	const lift = page.getByTestId('criterion-subject-lift');
+	await expect(lift.getByTestId('evidence-share')).toContainText('%');
+	await expect(lift.getByTestId('evidence-measured')).toContainText('over the ambient alone');
+	await expect(lift.getByTestId('evidence-predicted')).toContainText('over the ambient alone');
+	await expect(page.getByTestId('flash-used')).toContainText('guide number 60, 1/4 power, 3 m from the subject');
+	// the clipped areas are drawn over the photo only when asked
+	await expect(page.getByTestId('clipped-overlay')).toHaveCount(0);
+	await page.getByTestId('toggle-clipped-lit').check();
+	await expect(page.getByRole('region', { name: 'The lit frame' }).getByTestId('clipped-overlay')).toHaveCount(1);
 
 	// the mentor's side
 	const mentor = await asRole(browser, 'mentor', '/mentor');
