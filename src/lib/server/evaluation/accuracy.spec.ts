@@ -42,6 +42,16 @@ describe('evaluation subset', () => {
 		expect(lift.message).toMatch(/clipped to white in the reference frame/);
 	});
 
+	it('hands an edited frame under a contrasty curve to a mentor, naming the tone curve as the doubt', () => {
+		const edited = outcomes.find((o) => o.case.id.startsWith('022'))!;
+		// the lift is clearly above 1 stop either way, but whether it is in the flash-share window depends on the reading
+		expect(edited.criteria.find((c) => c.kind === 'subject-lift')!.verdict).toBe('pass');
+		const share = edited.criteria.find((c) => c.kind === 'flash-share')!;
+		expect(share.verdict).toBe('unknown');
+		expect(share.message).toMatch(/cannot tell a picture style from an edited frame/);
+		expect(edited.criteria.find((c) => c.kind === 'background-drop')!.verdict).not.toBe('pass');
+	});
+
 	it('passes a blown-out subject on its lower bound but does not claim to know the balance', () => {
 		const hot = outcomes.find((o) => o.case.id.startsWith('127'))!;
 		const lift = hot.criteria.find((c) => c.kind === 'subject-lift')!;

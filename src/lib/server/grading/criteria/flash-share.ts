@@ -1,7 +1,7 @@
 // flash-share: the flash's share of the subject's light (or the flash:ambient ratio), measured from the reference/lit pair.
 import { mix } from '../../../exposure/index';
 import { formatAmount, formatStops } from '../format';
-import { noLiftReason, ratioFromLift, shareFromLift } from '../pair/index';
+import { curveDoubtNote, noLiftReason, ratioFromLift, shareFromLift } from '../pair/index';
 import { isResult, judge, requirePair, type CriterionResult, type GradeContext } from '../result';
 import { resolveFrames, type Criterion } from '../spec';
 
@@ -43,7 +43,7 @@ export function gradeFlashShare(c: FlashShare, ctx: GradeContext): CriterionResu
 	if (verdict === 'unknown') {
 		const why = lowerBound
 			? 'Most of the flash-lit subject is blown out (pure white), so that is only a lower bound and the balance cannot be measured; a mentor will decide.'
-			: 'That is too close to the edge of the range to call (or the camera’s tone curve leaves it uncertain), so a mentor will decide.';
+			: `That is too close to the edge of the range to call (± ${formatStops(u)} on the subject’s level), so a mentor will decide.${curveDoubtNote(got.pair)}`;
 		return { ...base, verdict, measured, missing: [], evidence, message: `${found} ${why}` };
 	}
 	const more = lift < lo;

@@ -1,7 +1,7 @@
 // subject-lift: how many stops the flash lifted the subject above the ambient alone, against the same subject in the reference.
 import { formatStopAmount, formatStops } from '../format';
 import { liftAdvice, syncSpeedOf } from '../messages';
-import { noLiftReason, shareFromLift, ratioFromLift } from '../pair/index';
+import { curveDoubtNote, noLiftReason, shareFromLift, ratioFromLift } from '../pair/index';
 import { isResult, judge, requirePair, type CriterionResult, type GradeContext } from '../result';
 import { resolveFrames, type Criterion } from '../spec';
 import { predictedLift, blownNote } from './evidence';
@@ -34,7 +34,7 @@ export function gradeSubjectLift(c: SubjectLift, ctx: GradeContext): CriterionRe
 	const note = blownNote(pair.blownShare);
 	if (verdict === 'pass') return { ...base, verdict, measured: lift, missing: [], evidence, message: `${found} They stand out from the darker world around them.${note}` };
 	if (verdict === 'unknown') {
-		return { ...base, verdict, measured: lift, missing: [], evidence, message: `${found} That is within the measuring uncertainty (± ${formatStops(pair.liftUncertainty)}) of the target, so a mentor will decide.${note}` };
+		return { ...base, verdict, measured: lift, missing: [], evidence, message: `${found} That is within the measuring uncertainty (± ${formatStops(pair.liftUncertainty)}) of the target, so a mentor will decide.${curveDoubtNote(pair)}${note}` };
 	}
 	const advice = liftAdvice({ exposureTime: lit.exif.exposureTime, lift, wanted: c.minStops }, syncSpeedOf(ctx.spec));
 	return { ...base, verdict, measured: lift, missing: [], evidence, message: `${found} ${advice}${note}` };

@@ -59,3 +59,10 @@ export function noLiftReason(pair: PairMeasure): string {
 		? `${pair.liftUnknownReason.charAt(0).toUpperCase()}${pair.liftUnknownReason.slice(1)}.`
 		: 'No part of the subject box could be measured in both frames (it is clipped or too dark).';
 }
+
+/** When most of a lift's uncertainty comes from the tone curve, the sentence that says so; '' otherwise. */
+export function curveDoubtNote(pair: PairMeasure): string {
+	return pair.curveDoubt > 0.5 * pair.liftUncertainty
+		? ' Most of that uncertainty is the camera’s tone curve: the background darkened by a different amount than the settings say, and the file cannot tell a picture style from an edited frame.'
+		: '';
+}
