@@ -6,6 +6,7 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import postgres from 'postgres';
 import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
+import { signUpAndConfirm } from './support/sign-up';
 
 const COURSE = 'daylight-flash-for-action';
 const LESSON = 'off-the-axis';
@@ -78,10 +79,8 @@ test('a new visitor sees the course guide, then signs up, enrols and sends two A
 	await expect(blue.locator('[data-gear="trigger"]')).toHaveCount(1);
 
 	await page.getByRole('link', { name: 'Create an account' }).click();
-	await page.getByLabel('Your name').fill('Sam Okoro');
-	await page.getByLabel('E-mail', { exact: true }).fill(email);
-	await page.getByLabel('Password', { exact: true }).fill(password);
-	await page.getByRole('button', { name: 'Create account' }).click();
+	// the mailed link confirms the address, signs in and comes back to the course
+	await signUpAndConfirm(page, 'Sam Okoro', email, password);
 	await expect(page).toHaveURL(new RegExp(`/courses/${COURSE}$`));
 	await sql`insert into enrolments (user_id, course_id, source) select u.id, c.id, 'admin' from users u, courses c where u.email = ${email} and c.slug = ${COURSE}`;
 
