@@ -2,7 +2,7 @@
 import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm';
 import { db } from '../db/index';
 import { attemptFrames, attempts, type Assignment, type AttemptStatus, type AttemptVerdict } from '../db/schema';
-import { hasCourseAccess } from '../enrolment-access';
+import { decideAccess } from '../lessons/access';
 import { describeCriterion, validateSpec } from '../grading/index';
 import type { AuthUser } from '../auth';
 import { canSeeAttempt, type Viewer } from './access';
@@ -85,7 +85,7 @@ export async function lessonAssignmentCards(
 ): Promise<AssignmentCardData[]> {
 	if (list.length === 0) return [];
 	const [access, latest] = await Promise.all([
-		hasCourseAccess(user, place.courseId),
+		decideAccess(user, { courseId: place.courseId, courseSlug: place.courseSlug, free: false }),
 		user ? latestVerdicts(user.id, list.map((a) => a.id)) : Promise.resolve(new Map<number, { verdict: string; at: string }>())
 	]);
 	return list.map((a) => {
@@ -97,7 +97,7 @@ export async function lessonAssignmentCards(
 			frames: checked.ok ? checked.spec.frames : [],
 			criteria: checked.ok ? checked.spec.criteria.map(describeCriterion) : [],
 			lastVerdict: latest.get(a.id) ?? null,
-			uploadHref: user && access ? `/courses/${place.courseSlug}/${place.lessonSlug}/assignments/${a.slug}` : null
+			uploadHref: access === 'open' ? `/courses/${place.courseSlug}/${place.lessonSlug}/assignments/${a.slug}` : null
 		};
 	});
 }

@@ -3,10 +3,10 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { getLesson } from '$lib/server/courses';
-import { courseAccessResponse } from '$lib/server/enrolment-access';
 import { checkApiAccess } from '$lib/server/guards';
 import { renderPublishedLesson } from '$lib/server/authoring/published';
 import { checkQuizAnswer } from '$lib/server/lessons/quiz';
+import { apiAccess, decideAccess } from '$lib/server/lessons/access';
 import { completeIfQuizzesRight, saveQuizAnswer } from '$lib/server/progress';
 import type { RequestHandler } from './$types';
 
@@ -40,11 +40,8 @@ export const POST: RequestHandler = async ({ locals, request }) => {
 
 	const [, , courseSlug, lessonSlug] = lessonPath.replace(/\/$/, '').split('/');
 	const found = await getLesson(courseSlug, lessonSlug);
-	if (!found) return problem(404, 'not-found', 'There is no such lesson.');
-	if (!found.lesson.freePreview) {
-		const refused = await courseAccessResponse(access.user, found.course.id);
-		if (refused) return refused;
-	}
+	const refused = apiAccess(await decideAccess(access.user, found && { courseId: found.course.id, courseSlug, free: found.lesson.freePreview }));
+	if (refused || !found) return refused!;
 	const rendered = await renderPublishedLesson(found.lesson);
 	const verdict = rendered ? checkQuizAnswer(rendered.segments, rendered.quizIds, quizId, answer) : { kind: 'no-quiz' as const };
 	if (verdict.kind === 'no-quiz') return problem(404, 'not-found', `This lesson has no quiz "${quizId}".`);

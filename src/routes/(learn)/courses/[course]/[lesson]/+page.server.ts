@@ -1,26 +1,23 @@
-import { error, redirect } from '@sveltejs/kit';
+import { error } from '@sveltejs/kit';
 import { getLesson } from '$lib/server/courses';
 import { renderPublishedLesson } from '$lib/server/authoring/published';
 import { setLessonComplete, visitLesson } from '$lib/server/progress';
-import { hasCourseAccess, requireCourseAccess } from '$lib/server/enrolment-access';
-import { requireUser, signInPath } from '$lib/server/guards';
+import { actionAccess, decideAccess, lessonPageAccess } from '$lib/server/lessons/access';
+import { requireUser } from '$lib/server/guards';
 import { lessonAssignmentCards } from '$lib/server/attempts/history';
 import { lessonNeighbours } from '$lib/server/lesson-neighbours';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals, url }) => {
 	const found = await getLesson(params.course, params.lesson);
-	if (!found) error(404, { message: 'There is no such lesson.' });
-	const { lesson, module, course } = found;
 	// paid access, checked before anything of the lesson is returned: others get the course page's enrol offer
-	if (!lesson.freePreview && !(await hasCourseAccess(locals.user, course.id))) {
-		redirect(303, locals.user ? `/courses/${course.slug}?locked=${encodeURIComponent(lesson.slug)}` : signInPath(url));
-	}
+	lessonPageAccess(await decideAccess(locals.user, guardOf(found)), { url, courseSlug: params.course, lessonSlug: params.lesson });
+	const { lesson, module, course } = found!;
 	// every lesson is rendered here, files too: a client-side import would put paid text in public bundles
 	const [rendered, visit, assignmentCards, neighbours] = await Promise.all([
 		renderPublishedLesson(lesson),
 		locals.user ? visitLesson(locals.user.id, lesson.id) : null,
-		lessonAssignmentCards(locals.user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found.assignments),
+		lessonAssignmentCards(locals.user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found!.assignments),
 		lessonNeighbours(course.id, lesson.id)
 	]);
 	if (!rendered) error(404, { message: 'This lesson has no text yet.' });
@@ -42,15 +39,18 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 	};
 };
 
+function guardOf(found: Awaited<ReturnType<typeof getLesson>>) {
+	return found ? { courseId: found.course.id, courseSlug: found.course.slug, free: found.lesson.freePreview } : null;
+}
+
 export const actions = {
 	/** "I've finished this lesson" (done=yes) and its undo (done=no). */
 	complete: async (event) => {
 		const user = requireUser(event);
 		const found = await getLesson(event.params.course, event.params.lesson);
-		if (!found) error(404, { message: 'There is no such lesson.' });
-		if (!found.lesson.freePreview) await requireCourseAccess(user, found.course.id, found.course.slug);
+		actionAccess(await decideAccess(user, guardOf(found)), { url: event.url, courseSlug: event.params.course });
 		const done = (await event.request.formData()).get('done') !== 'no';
-		await setLessonComplete(user.id, found.lesson.id, done);
+		await setLessonComplete(user.id, found!.lesson.id, done);
 		return { completed: done };
 	}
 } satisfies Actions;
