@@ -6,6 +6,7 @@ import { client } from '$lib/server/db';
 import { readSession } from '$lib/server/auth';
 import { closeQueue } from '$lib/server/attempts/queue';
 import { startInlineWorker } from '$lib/server/attempts/worker';
+import { readCatalogue } from '$lib/server/lessons/catalogue';
 import { guardInput } from '$lib/server/edge/guard-input';
 
 // adapter-node waits for open handles before exiting: stop the job queue, then close the pool
@@ -14,8 +15,11 @@ process.on('sveltekit:shutdown', () => {
 });
 
 /** Grading runs inside the app unless STOPWISE_INLINE_WORKER=0; never while building. Not awaited: pages need not wait. */
-export const init: ServerInit = () => {
-	if (!building) void startInlineWorker();
+export const init: ServerInit = async () => {
+	if (building) return;
+	// the course files are checked once at start-up: a broken one stops the app, naming the file
+	await readCatalogue();
+	void startInlineWorker();
 };
 
 /** On every response (pages get their Content-Security-Policy from `kit.csp` in svelte.config.js). */

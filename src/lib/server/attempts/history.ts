@@ -7,6 +7,7 @@ import { describeCriterion, validateSpec } from '../grading/index';
 import type { AuthUser } from '../auth';
 import { canSeeAttempt, type Viewer } from './access';
 import { frameFileHref } from './files';
+import type { AssignmentCard } from '../../lessons/page-data';
 
 export interface AttemptSummary {
 	id: string;
@@ -67,22 +68,13 @@ export async function readAttemptStatus(viewer: Viewer, attemptId: string): Prom
 	return { ...rest, gradedAt: gradedAt?.toISOString() ?? null };
 }
 
-export interface AssignmentCardData {
-	slug: string;
-	title: string;
-	brief: string;
-	frames: string[];
-	criteria: string[];
-	lastVerdict: { verdict: string; at: string } | null;
-	uploadHref: string | null;
-}
 
 /** The Assignment cards of one lesson: criteria in plain words, the viewer's last verdict, and where to upload. */
 export async function lessonAssignmentCards(
 	user: Pick<AuthUser, 'id' | 'roles'> | null,
 	place: { courseId: number; courseSlug: string; lessonSlug: string },
 	list: readonly Pick<Assignment, 'id' | 'slug' | 'title' | 'brief' | 'spec'>[]
-): Promise<AssignmentCardData[]> {
+): Promise<AssignmentCard[]> {
 	if (list.length === 0) return [];
 	const [access, latest] = await Promise.all([
 		decideAccess(user, { courseId: place.courseId, courseSlug: place.courseSlug, free: false }),

@@ -3,8 +3,8 @@ import { and, desc, eq } from 'drizzle-orm';
 import { db, type Db } from '../db';
 import { lessonVersions, lessons, users, type Lesson } from '../db/schema';
 import type { DraftInput } from '$lib/forms/authoring';
-import { readLessonFileBody } from './file-body';
-import { renderLessonMarkdown } from './render';
+import { readLessonFileBody } from '../lessons/source';
+import { renderLessonMarkdown } from '../lessons/render';
 
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 

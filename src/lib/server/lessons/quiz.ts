@@ -1,7 +1,7 @@
 // Checks a learner's quiz answer on the server, against the quiz as the lesson's own text defines it.
 import { readNumberText } from '$lib/components/widgets/parts/attrs';
 import { checkAnswer, readQuizSpec } from '$lib/lessons/quiz';
-import type { LessonSegment } from '$lib/lesson-widgets';
+import type { LessonSegment } from '$lib/lessons/widgets';
 
 export type QuizVerdict =
 	| { kind: 'no-quiz' }

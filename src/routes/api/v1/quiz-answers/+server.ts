@@ -4,7 +4,7 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { getLesson } from '$lib/server/courses';
 import { checkApiAccess } from '$lib/server/guards';
-import { renderPublishedLesson } from '$lib/server/authoring/published';
+import { renderPublishedLesson } from '$lib/server/lessons/published';
 import { checkQuizAnswer } from '$lib/server/lessons/quiz';
 import { apiAccess, decideAccess } from '$lib/server/lessons/access';
 import { completeIfQuizzesRight, saveQuizAnswer } from '$lib/server/progress';

@@ -1,11 +1,12 @@
 import { error } from '@sveltejs/kit';
 import { getLesson } from '$lib/server/courses';
-import { renderPublishedLesson } from '$lib/server/authoring/published';
+import { renderPublishedLesson } from '$lib/server/lessons/published';
 import { setLessonComplete, visitLesson } from '$lib/server/progress';
 import { actionAccess, decideAccess, lessonPageAccess } from '$lib/server/lessons/access';
 import { requireUser } from '$lib/server/guards';
 import { lessonAssignmentCards } from '$lib/server/attempts/history';
 import { lessonNeighbours } from '$lib/server/lesson-neighbours';
+import type { LessonPageData } from '$lib/lessons/page-data';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals, url }) => {
@@ -36,7 +37,7 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 		quizAnswers: visit?.quizAnswers ?? {},
 		assignments: assignmentCards,
 		neighbours
-	};
+	} satisfies LessonPageData;
 };
 
 function guardOf(found: Awaited<ReturnType<typeof getLesson>>) {

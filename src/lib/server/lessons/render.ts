@@ -1,8 +1,8 @@
 // Renders lesson Markdown written in the browser: mdsvex compiles the prose, which is sanitised into HTML
 // segments; widget tags on their own lines become allow-listed widget segments with string props. Nothing runs.
 import { compile } from 'mdsvex';
-import type { LessonSegment } from '$lib/lesson-widgets';
-import { isWidgetName } from '$lib/lesson-widgets';
+import type { LessonSegment } from '$lib/lessons/widgets';
+import { isWidgetName } from '$lib/lessons/widgets';
 import { sanitiseLessonHtml } from './sanitise';
 import { TAG_START, readWidgetTag } from './widget-tag';
 

@@ -1,6 +1,6 @@
 // Renders the lessons learners open, remembering recent results (a lesson changes only when it is published).
 import type { Lesson } from '../db/schema';
-import { readLessonFileBody } from './file-body';
+import { readLessonSource } from './source';
 import { renderLessonMarkdown, type RenderedLesson } from './render';
 
 const MAX_CACHED = 64;
@@ -18,17 +18,12 @@ export function renderPublishedLesson(lesson: Renderable): Promise<RenderedLesso
 		cache.set(key, hit);
 		return hit;
 	}
-	const rendering = readBody(lesson).then((body) => (body === null ? null : renderLessonMarkdown(body)));
+	const rendering = readLessonSource(lesson).then((body) => (body === null ? null : renderLessonMarkdown(body)));
 	// a failed render is not remembered: the next request tries again
 	rendering.catch(() => cache.delete(key));
 	cache.set(key, rendering);
 	while (cache.size > MAX_CACHED) cache.delete(cache.keys().next().value!);
 	return rendering;
-}
-
-async function readBody(lesson: Renderable): Promise<string | null> {
-	if (lesson.source === 'db') return lesson.body ?? '';
-	return lesson.contentPath ? readLessonFileBody(lesson.contentPath) : null;
 }
 
 /** The ids of the lesson's quizzes, from its text; null when the text cannot be read. */
