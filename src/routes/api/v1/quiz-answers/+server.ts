@@ -7,6 +7,7 @@ import { checkApiAccess } from '$lib/server/guards';
 import { renderPublishedLesson } from '$lib/server/lessons/published';
 import { checkQuizAnswer } from '$lib/server/lessons/quiz';
 import { apiAccess, decideAccess } from '$lib/server/lessons/access';
+import { guardOf } from '$lib/server/lessons/page';
 import { completeIfQuizzesRight, saveQuizAnswer } from '$lib/server/progress';
 import type { RequestHandler } from './$types';
 
@@ -40,7 +41,7 @@ export const POST: RequestHandler = async ({ locals, request }) => {
 
 	const [, , courseSlug, lessonSlug] = lessonPath.replace(/\/$/, '').split('/');
 	const found = await getLesson(courseSlug, lessonSlug);
-	const refused = apiAccess(await decideAccess(access.user, found && { courseId: found.course.id, courseSlug, free: found.lesson.freePreview }));
+	const refused = apiAccess(await decideAccess(access.user, guardOf(found)));
 	if (refused || !found) return refused!;
 	const rendered = await renderPublishedLesson(found.lesson);
 	const verdict = rendered ? checkQuizAnswer(rendered.segments, rendered.quizIds, quizId, answer) : { kind: 'no-quiz' as const };
