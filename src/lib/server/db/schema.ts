@@ -357,7 +357,6 @@ export type VerdictOverride = typeof verdictOverrides.$inferSelect;
 
 export const shootPlanStatuses = ['waiting', 'approved', 'returned'] as const;
 export type ShootPlanStatus = (typeof shootPlanStatuses)[number];
-type PlanPoint = { x: number; y: number };
 
 /** A learner's plan for a shoot, filed before an Assignment's uploads open; the newest one per learner and Assignment decides. */
 export const shootPlans = pgTable(
@@ -370,7 +369,7 @@ export const shootPlans = pgTable(
 		assignmentId: integer('assignment_id')
 			.notNull()
 			.references(() => assignments.id, { onDelete: 'cascade' }),
-		lightPlan: jsonb('light_plan').$type<{ camera: PlanPoint; subject: PlanPoint; lights: PlanPoint[] }>().notNull(),
+		lightPlan: jsonb('light_plan').$type<PlanLayout>().notNull(),
 		/** the settings as the learner wrote them: shutter '1/250', aperture 'f/8', ISO, flash in words */
 		settings: jsonb('settings').$type<{ shutter: string; aperture: string; iso: number; flash: string }>().notNull(),
 		story: text('story').notNull(),
