@@ -6,16 +6,21 @@ import { client } from '$lib/server/db';
 import { readSession } from '$lib/server/auth';
 import { closeQueue } from '$lib/server/attempts/queue';
 import { startInlineWorker } from '$lib/server/attempts/worker';
+import { readCatalogue } from '$lib/server/lessons/catalogue';
+import { closeCompilePool } from '$lib/server/lessons/compile-pool';
 import { guardInput } from '$lib/server/edge/guard-input';
 
 // adapter-node waits for open handles before exiting: stop the job queue, then close the pool
 process.on('sveltekit:shutdown', () => {
-	void closeQueue().finally(() => client.end({ timeout: 5 }));
+	void Promise.allSettled([closeQueue(), closeCompilePool()]).finally(() => client.end({ timeout: 5 }));
 });
 
 /** Grading runs inside the app unless STOPWISE_INLINE_WORKER=0; never while building. Not awaited: pages need not wait. */
-export const init: ServerInit = () => {
-	if (!building) void startInlineWorker();
+export const init: ServerInit = async () => {
+	if (building) return;
+	// the course files are checked once at start-up: a broken one stops the app, naming the file
+	await readCatalogue();
+	void startInlineWorker();
 };
 
 /** On every response (pages get their Content-Security-Policy from `kit.csp` in svelte.config.js). */

@@ -74,6 +74,8 @@ test('an author writes, previews and publishes a lesson; a learner uses its widg
 	await page.getByTestId('quiz-check').click();
 	await expect(page.getByTestId('quiz-result')).toContainText('Right');
 	await expect(page.getByTestId('quiz-saving')).toHaveText('Answer saved.');
+	// its only quiz answered right: the lesson shows complete at once, without a reload
+	await expect(page.getByTestId('lesson-complete')).toBeVisible();
 	await page.reload();
 	await expect(page.getByTestId('quiz-answer')).toHaveValue('30');
 	await expect(page.getByTestId('quiz-result')).toContainText('Right: the answer is 30 m');

@@ -10,7 +10,7 @@ import { createLesson, deleteDraftLesson, saveLessonSettings } from '$lib/server
 import { listVersions, publishDraft, restoreVersion, saveDraft, unpublishLesson } from '$lib/server/authoring/versions';
 import { saveAssignment } from '$lib/server/authoring/assignments';
 import { moveLesson } from '$lib/server/authoring/outline';
-import { stripFrontmatter } from '$lib/server/authoring/file-body';
+import { stripFrontmatter } from '$lib/server/lessons/source';
 import { readFile } from 'node:fs/promises';
 import { load as lessonLoad, actions as lessonActions } from '../../src/routes/(learn)/courses/[course]/[lesson]/+page.server';
 import { actions as editorActions } from '../../src/routes/(author)/author/lessons/[id=integer]/+page.server';

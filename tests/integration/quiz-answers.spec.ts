@@ -1,4 +1,4 @@
-// POST /api/v1/quiz-answers: who may store answers, what a bad request gets, upserts, paid access and completion.
+// POST /api/v1/quiz-answers: who may store answers, what a bad request gets, the server's own verdict, upserts, paid access and completion.
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
@@ -69,9 +69,9 @@ describe('POST /api/v1/quiz-answers', () => {
 	});
 
 	test('stores an answer to a free-preview lesson and replaces it with the next one (one row per quiz)', async () => {
-		const first = await post({ lessonPath: PREVIEW, quizId: 'gn-1', answer: 20, correct: false }, learner.cookies);
+		const first = await post({ lessonPath: PREVIEW, quizId: 'gn-1', answer: 20 }, learner.cookies);
 		expect(first).toEqual({ status: 200, body: { saved: true, quizId: 'gn-1', answer: '20', correct: false, lessonComplete: false } });
-		const second = await post({ lessonPath: `${PREVIEW}/`, quizId: 'gn-1', answer: 24, correct: true }, learner.cookies);
+		const second = await post({ lessonPath: `${PREVIEW}/`, quizId: 'gn-1', answer: '24' }, learner.cookies);
 		expect(second.status).toBe(200);
 		const rows = await db.select().from(quizAnswers).where(and(eq(quizAnswers.userId, learner.id), eq(quizAnswers.quizId, 'gn-1')));
 		expect(rows.map((r) => ({ answer: r.answer, correct: r.correct, lessonId: r.lessonId }))).toEqual([
@@ -79,8 +79,23 @@ describe('POST /api/v1/quiz-answers', () => {
 		]);
 	});
 
+	test('a forged verdict is ignored: a wrong answer sent with correct=true is stored as wrong and completes nothing', async () => {
+		// gn-2 in the lesson file: GN 48 at 4 m needs f/12 (GN = distance × f-number), tolerance 0.5; 16 is wrong
+		const forged = await post({ lessonPath: PREVIEW, quizId: 'gn-2', answer: 16, correct: true }, learner.cookies);
+		expect(forged).toEqual({ status: 200, body: { saved: true, quizId: 'gn-2', answer: '16', correct: false, lessonComplete: false } });
+		const [row] = await db.select().from(quizAnswers).where(and(eq(quizAnswers.userId, learner.id), eq(quizAnswers.quizId, 'gn-2')));
+		expect(row.correct).toBe(false);
+		const progress = await db.query.lessonProgress.findFirst({
+			where: and(eq(lessonProgress.userId, learner.id), eq(lessonProgress.lessonId, await lessonIdOf('guide-numbers')))
+		});
+		expect(progress?.completedAt ?? null).toBeNull();
+		// and a right answer sent with correct=false is still right
+		const modest = await post({ lessonPath: PREVIEW, quizId: 'gn-1', answer: 24, correct: false }, learner.cookies);
+		expect(modest.body.correct).toBe(true);
+	});
+
 	test('completes the lesson once every quiz in it is answered right', async () => {
-		const res = await post({ lessonPath: PREVIEW, quizId: 'gn-2', answer: 12, correct: true }, learner.cookies);
+		const res = await post({ lessonPath: PREVIEW, quizId: 'gn-2', answer: 12 }, learner.cookies);
 		expect(res.body.lessonComplete).toBe(true);
 		const progress = await db.query.lessonProgress.findFirst({
 			where: and(eq(lessonProgress.userId, learner.id), eq(lessonProgress.lessonId, await lessonIdOf('guide-numbers')))
@@ -96,7 +111,7 @@ describe('POST /api/v1/quiz-answers', () => {
 	});
 
 	test('a members-only lesson needs an enrolment: 403 without, 200 with', async () => {
-		const body = { lessonPath: MEMBERS, quizId: 'isq-3', answer: 2, correct: true };
+		const body = { lessonPath: MEMBERS, quizId: 'isq-3', answer: 2 };
 		const refused = await post(body, learner.cookies);
 		expect(refused).toMatchObject({ status: 403, body: { error: 'not-enrolled' } });
 
@@ -104,7 +119,7 @@ describe('POST /api/v1/quiz-answers', () => {
 		await db.insert(enrolments).values({ userId: learner.id, courseId: course!.id, source: 'admin' });
 		try {
 			const allowed = await post(body, learner.cookies);
-			expect(allowed).toMatchObject({ status: 200, body: { saved: true, lessonComplete: false } });
+			expect(allowed).toMatchObject({ status: 200, body: { saved: true, correct: true, lessonComplete: false } });
 		} finally {
 			await db.delete(enrolments).where(eq(enrolments.userId, learner.id));
 		}

@@ -66,7 +66,7 @@ beforeAll(async () => {
 			verdict: s.verdict,
 			autoVerdict: s.verdict,
 			reviewState: s.review ?? 'open',
-			spec: {},
+			spec: { frames: [], criteria: [] },
 			subjectBox: { x: 0.3, y: 0.2, w: 0.4, h: 0.6 },
 			createdAt: new Date(now - s.daysAgo * 24 * 3600 * 1000)
 		});

@@ -7,13 +7,13 @@ export interface SubjectBox {
 	h: number;
 }
 
-/** Same as the frame reader's default (checked by box.spec.ts): a centred box where an athlete usually stands. */
+/** The default subject box, here and in the frame reader: a centred box where an athlete usually stands. */
 export const CENTRED_BOX: Readonly<SubjectBox> = Object.freeze({ x: 0.3, y: 0.2, w: 0.4, h: 0.6 });
 
 /** Smallest side, so the box stays visible and grabbable on a phone. */
 export const MIN_SIDE = 0.05;
-// the frame reader refuses a box over 90 % of the frame: leave room for the background
-const MAX_AREA = 0.9;
+/** Largest share of the frame a box may cover: the background needs pixels of its own to be measured. */
+export const MAX_AREA = 0.9;
 
 const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
 const tidy = (v: number) => Math.round(v * 10000) / 10000;

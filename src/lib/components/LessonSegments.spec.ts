@@ -1,7 +1,7 @@
 // The segment renderer mounts exactly the allow-listed widgets, in order, between the sanitised HTML.
 import { render } from 'svelte/server';
 import { describe, expect, it, vi } from 'vitest';
-import { WIDGET_NAMES } from '$lib/lesson-widgets';
+import { WIDGET_NAMES } from '$lib/lessons/widgets';
 import LessonSegments from './LessonSegments.svelte';
 
 vi.mock('$app/state', () => ({ page: { data: {}, url: new URL('http://localhost/courses/x/y') } }));

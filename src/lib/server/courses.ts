@@ -10,27 +10,26 @@ export async function listCourses() {
 	});
 }
 
+/** A published course and its outline (modules, their published lessons in order), in one query; null when missing. */
 export async function getCourseOutline(slug: string) {
-	const course = await db.query.courses.findFirst({ where: and(eq(courses.slug, slug), eq(courses.published, true)) });
-	if (!course) return null;
 	const rows = await db
 		.select({
-			moduleId: modules.id,
+			course: courses,
 			moduleSlug: modules.slug,
 			moduleTitle: modules.title,
 			moduleSummary: modules.summary,
-			lessonId: lessons.id,
 			lessonSlug: lessons.slug,
 			lessonTitle: lessons.title,
 			lessonSummary: lessons.summary,
 			freePreview: lessons.freePreview,
-			minutes: lessons.minutes,
-			published: lessons.published
+			minutes: lessons.minutes
 		})
-		.from(modules)
+		.from(courses)
+		.leftJoin(modules, eq(modules.courseId, courses.id))
 		.leftJoin(lessons, and(eq(lessons.moduleId, modules.id), eq(lessons.published, true)))
-		.where(eq(modules.courseId, course.id))
+		.where(and(eq(courses.slug, slug), eq(courses.published, true)))
 		.orderBy(asc(modules.position), asc(lessons.position));
+	if (rows.length === 0) return null;
 	const outline: {
 		slug: string;
 		title: string;
@@ -38,9 +37,11 @@ export async function getCourseOutline(slug: string) {
 		lessons: { slug: string; title: string; summary: string; freePreview: boolean; minutes: number }[];
 	}[] = [];
 	for (const r of rows) {
+		// a course without modules yet comes back as one row with no module
+		if (r.moduleSlug === null) continue;
 		let m = outline.at(-1);
 		if (!m || m.slug !== r.moduleSlug) {
-			m = { slug: r.moduleSlug, title: r.moduleTitle, summary: r.moduleSummary, lessons: [] };
+			m = { slug: r.moduleSlug, title: r.moduleTitle!, summary: r.moduleSummary!, lessons: [] };
 			outline.push(m);
 		}
 		if (r.lessonSlug) {
@@ -53,9 +54,10 @@ export async function getCourseOutline(slug: string) {
 			});
 		}
 	}
-	return { course, modules: outline };
+	return { course: rows[0].course, modules: outline };
 }
 
+/** A published lesson of a published course, with its module and course (one query); null when missing. */
 export async function getLesson(courseSlug: string, lessonSlug: string) {
 	const [row] = await db
 		.select({ lesson: lessons, module: modules, course: courses })
@@ -66,10 +68,10 @@ export async function getLesson(courseSlug: string, lessonSlug: string) {
 			and(eq(courses.slug, courseSlug), eq(lessons.slug, lessonSlug), eq(lessons.published, true), eq(courses.published, true))
 		)
 		.limit(1);
-	if (!row) return null;
-	const lessonAssignments = await db.query.assignments.findMany({
-		where: eq(assignments.lessonId, row.lesson.id),
-		orderBy: asc(assignments.position)
-	});
-	return { ...row, assignments: lessonAssignments };
+	return row ?? null;
+}
+
+/** A lesson's Assignments in order. */
+export async function lessonAssignments(lessonId: number) {
+	return db.query.assignments.findMany({ where: eq(assignments.lessonId, lessonId), orderBy: asc(assignments.position) });
 }

@@ -3,8 +3,10 @@ import { and, asc, eq } from 'drizzle-orm';
 import { db } from './db';
 import { lessons, modules } from './db/schema';
 
-export type LessonLink = { slug: string; title: string; moduleTitle: string };
-export type LessonNeighbours = { previous: LessonLink | null; next: LessonLink | null; position: number; count: number };
+import type { LessonLink, LessonPageData } from '../lessons/page-data';
+
+export type { LessonLink };
+export type LessonNeighbours = LessonPageData['neighbours'];
 
 export async function lessonNeighbours(courseId: number, lessonId: number): Promise<LessonNeighbours> {
 	const rows = await db

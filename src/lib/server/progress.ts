@@ -3,7 +3,9 @@ import { and, desc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizzle-or
 import { db } from './db';
 import { courses, enrolments, lessonProgress, lessons, modules, quizAnswers, type Role } from './db/schema';
 
-export type SavedAnswers = Record<string, { answer: string; correct: boolean }>;
+import type { SavedQuizAnswers } from '../lessons/page-data';
+
+export type SavedAnswers = SavedQuizAnswers;
 
 /** Notes the visit (for "Continue") and returns what the lesson page shows: completion and saved answers. */
 export async function visitLesson(userId: string, lessonId: number): Promise<{ completed: boolean; quizAnswers: SavedAnswers }> {

@@ -5,7 +5,7 @@ import { randomBytes } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import type { Db } from './db';
 import { assignments, coupons, courses, lessons, modules, users, type Role } from './db/schema';
-import { readCatalogue } from './content/catalogue';
+import { readCatalogue } from './lessons/catalogue';
 import { hashPassword } from './password';
 
 type DemoAccount = { role: Role; name: string; email: string; password: string; roles: Role[] };

@@ -1,17 +1,14 @@
 // The subject box (fractions 0–1 of the oriented frame), its default, checks and pixel bounds.
 
-export interface Box {
-	x: number;
-	y: number;
-	w: number;
-	h: number;
-}
+import { CENTRED_BOX, MAX_AREA, type SubjectBox } from '../../attempts/box';
+
+/** The one subject-box shape, shared with the upload form's editor. */
+export type Box = SubjectBox;
 
 /** A centred box covering the middle of the frame, where an athlete usually stands. */
-export const DEFAULT_SUBJECT_BOX: Readonly<Box> = Object.freeze({ x: 0.3, y: 0.2, w: 0.4, h: 0.6 });
+export const DEFAULT_SUBJECT_BOX: Readonly<Box> = CENTRED_BOX;
 
-// the background needs pixels of its own to be measured
-const MAX_SUBJECT_AREA = 0.9;
+const MAX_SUBJECT_AREA = MAX_AREA;
 const EDGE_SLACK = 1e-9;
 
 /** A reason the box is unusable, in words for a person, or null when it is fine. */

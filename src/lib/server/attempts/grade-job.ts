@@ -9,12 +9,8 @@ import { fileStore } from '../storage/index';
 import { notifyAttemptSql } from './events';
 import { maxUploadBytes } from './limits';
 
-/** What attempt_frames.analysis holds: the frame as read, or why it could not be read. */
-export type StoredAnalysis = { ok: true; frame: Frame } | { ok: false; message: string };
-/** What attempts.result holds. */
-export interface StoredResult {
-	criteria: CriterionResult[];
-}
+export type { StoredAnalysis, StoredResult } from '../db/json-types';
+import type { StoredAnalysis, StoredResult } from '../db/json-types';
 
 export interface GradeOptions {
 	/** Called after the frames are read and before the result is stored (tests interrupt a run here). */
@@ -62,7 +58,7 @@ export async function gradeAttempt(attemptId: string, options: GradeOptions = {}
 	let result;
 	try {
 		// the spec as stored with the attempt; grade() validates it again and throws SpecValidationError if broken
-		result = grade(claimed.spec as AssignmentSpecInput, frames, { used: claimed.flashUsed ?? undefined });
+		result = grade(claimed.spec, frames, { used: claimed.flashUsed ?? undefined });
 	} catch (error) {
 		if (!(error instanceof SpecValidationError)) throw error;
 		// a broken spec will not mend on retry: say so and hand the attempt to a mentor

@@ -2,11 +2,12 @@
 import { and, desc, eq, inArray, isNotNull } from 'drizzle-orm';
 import { db } from '../db/index';
 import { attemptFrames, attempts, type Assignment, type AttemptStatus, type AttemptVerdict } from '../db/schema';
-import { hasCourseAccess } from '../enrolment-access';
+import { decideAccess } from '../lessons/access';
 import { describeCriterion, validateSpec } from '../grading/index';
 import type { AuthUser } from '../auth';
 import { canSeeAttempt, type Viewer } from './access';
 import { frameFileHref } from './files';
+import type { AssignmentCard } from '../../lessons/page-data';
 
 export interface AttemptSummary {
 	id: string;
@@ -67,25 +68,16 @@ export async function readAttemptStatus(viewer: Viewer, attemptId: string): Prom
 	return { ...rest, gradedAt: gradedAt?.toISOString() ?? null };
 }
 
-export interface AssignmentCardData {
-	slug: string;
-	title: string;
-	brief: string;
-	frames: string[];
-	criteria: string[];
-	lastVerdict: { verdict: string; at: string } | null;
-	uploadHref: string | null;
-}
 
 /** The Assignment cards of one lesson: criteria in plain words, the viewer's last verdict, and where to upload. */
 export async function lessonAssignmentCards(
 	user: Pick<AuthUser, 'id' | 'roles'> | null,
 	place: { courseId: number; courseSlug: string; lessonSlug: string },
 	list: readonly Pick<Assignment, 'id' | 'slug' | 'title' | 'brief' | 'spec'>[]
-): Promise<AssignmentCardData[]> {
+): Promise<AssignmentCard[]> {
 	if (list.length === 0) return [];
 	const [access, latest] = await Promise.all([
-		hasCourseAccess(user, place.courseId),
+		decideAccess(user, { courseId: place.courseId, courseSlug: place.courseSlug, free: false }),
 		user ? latestVerdicts(user.id, list.map((a) => a.id)) : Promise.resolve(new Map<number, { verdict: string; at: string }>())
 	]);
 	return list.map((a) => {
@@ -97,7 +89,7 @@ export async function lessonAssignmentCards(
 			frames: checked.ok ? checked.spec.frames : [],
 			criteria: checked.ok ? checked.spec.criteria.map(describeCriterion) : [],
 			lastVerdict: latest.get(a.id) ?? null,
-			uploadHref: user && access ? `/courses/${place.courseSlug}/${place.lessonSlug}/assignments/${a.slug}` : null
+			uploadHref: access === 'open' ? `/courses/${place.courseSlug}/${place.lessonSlug}/assignments/${a.slug}` : null
 		};
 	});
 }

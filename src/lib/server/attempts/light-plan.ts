@@ -1,13 +1,12 @@
 // The optional Light Plan attached to an Attempt: camera, subject and 1–3 lights in metres on the plan.
 import { z } from 'zod';
+import { MAX_LIGHTS, PLAN_HALF, type PlanLayout } from '../../attempts/light-plan';
 
-// The Light Plan widget spans ±4 m each way (PLAN_HALF in the widget's plan.ts).
-const PLAN_HALF = 4;
 const metres = z.number().min(-PLAN_HALF).max(PLAN_HALF);
 const point = z.object({ x: metres, y: metres }).strict();
 
-export const lightPlanSchema = z.object({ camera: point, subject: point, lights: z.array(point).min(1).max(3) }).strict();
-export type AttachedLightPlan = z.infer<typeof lightPlanSchema>;
+export const lightPlanSchema = z.object({ camera: point, subject: point, lights: z.array(point).min(1).max(MAX_LIGHTS) }).strict() satisfies z.ZodType<PlanLayout>;
+export type AttachedLightPlan = PlanLayout;
 
 /** Reads the form's JSON text: '' is no plan; anything unreadable is a message. */
 export function parseLightPlan(text: string): { ok: true; plan: AttachedLightPlan | null } | { ok: false; message: string } {

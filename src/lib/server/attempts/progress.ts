@@ -116,6 +116,6 @@ export async function loadProgress(userId: string): Promise<ProgressPoint[]> {
 			assignmentHref: `/courses/${r.courseSlug}/${r.lessonSlug}/assignments/${r.assignmentSlug}`,
 			number: r.number,
 			verdict: r.verdict,
-			...summariseResult((r.result as StoredResult).criteria)
+			...summariseResult(r.result!.criteria)
 		}));
 }

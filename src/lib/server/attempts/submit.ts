@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import { db } from '../db/index';
 import { attemptFrames, attempts } from '../db/schema';
-import { hasCourseAccess } from '../enrolment-access';
+import { decideAccess, guardedAssignment } from '../lessons/access';
 import { fileStore } from '../storage/index';
 import type { AuthUser } from '../auth';
 import { findAssignment } from './assignment';
@@ -41,7 +41,7 @@ function describeError(error: unknown): string {
 export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: UploadForm): Promise<SubmitResult> {
 	const assignment = await findAssignment(form.assignmentSlug);
 	if (!assignment) return { kind: 'not-found' };
-	if (!(await hasCourseAccess(user, assignment.course.id))) return { kind: 'not-enrolled' };
+	if ((await decideAccess(user, guardedAssignment(assignment))) !== 'open') return { kind: 'not-enrolled' };
 	const earlier = await existingAttempt(user.id, form.submissionKey);
 	if (earlier) return { kind: 'duplicate', id: earlier };
 	if (!assignment.spec) {

@@ -75,7 +75,7 @@ export interface AttemptView {
 }
 
 function frameView(attemptId: string, row: typeof attemptFrames.$inferSelect): FrameView {
-	const analysis = row.analysis as StoredAnalysis | null;
+	const analysis = row.analysis;
 	const frame = analysis?.ok ? analysis.frame : null;
 	const pixels = frame?.pixels ?? null;
 	return {
@@ -138,7 +138,7 @@ export async function loadAttemptView(viewer: Viewer, attemptId: string): Promis
 		db.select().from(verdictOverrides).where(eq(verdictOverrides.attemptId, a.id)).orderBy(desc(verdictOverrides.createdAt))
 	]);
 	const critique = critiqueRows[0];
-	const rubric = rubricFor(a.spec as Parameters<typeof rubricFor>[0]);
+	const rubric = rubricFor(a.spec);
 	for (const id of Object.keys(critique?.critique.rubric ?? {})) {
 		const item = rubricItem(id);
 		if (item && !rubric.some((r) => r.id === id)) rubric.push(item);
@@ -161,7 +161,7 @@ export async function loadAttemptView(viewer: Viewer, attemptId: string): Promis
 		lightPlan: a.lightPlan,
 		flashUsed: describeFlashUsed(a.flashUsed),
 		frames: frameRows.map((f) => frameView(a.id, f)),
-		criteria: criteriaView(a.spec, a.result as StoredResult | null),
+		criteria: criteriaView(a.spec, a.result),
 		critique: critique ? { text: critique.critique.text, rubric: critique.critique.rubric, mentor: critique.mentor, updatedAt: critique.critique.updatedAt } : null,
 		pins: pinRows.map((p) => ({ id: p.id, number: p.number, frameName: p.frameName, x: p.x, y: p.y, text: p.text })),
 		rubric,

@@ -3,8 +3,9 @@ import { and, desc, eq } from 'drizzle-orm';
 import { db, type Db } from '../db';
 import { lessonVersions, lessons, users, type Lesson } from '../db/schema';
 import type { DraftInput } from '$lib/forms/authoring';
-import { readLessonFileBody } from './file-body';
-import { renderLessonMarkdown } from './render';
+import { readLessonFileBody } from '../lessons/source';
+import { renderLessonMarkdown } from '../lessons/render';
+import { forgetRenderedLesson, rememberRenderedLesson } from '../lessons/published';
 
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
@@ -87,13 +88,16 @@ export async function saveDraft(lessonId: number, authorId: string, input: Draft
  * With problems it stays a saved draft, so nothing typed is lost.
  */
 export async function publishDraft(lessonId: number, authorId: string, input: DraftInput): Promise<AuthoringResult> {
-	const { problems } = await renderLessonMarkdown(input.body);
+	const rendered = await renderLessonMarkdown(input.body);
+	const { problems } = rendered;
 	if (problems.length > 0) {
 		const saved = await saveDraft(lessonId, authorId, { ...input, note: input.note || 'Draft (publishing was refused)' });
 		if (!saved.ok) return saved;
 		return { ok: false, message: 'Saved as a draft but not published: fix the problems listed under the preview first.', problems };
 	}
-	return db.transaction(async (tx) => {
+	const publishedAt = new Date();
+	let madeLive = false;
+	const result = await db.transaction(async (tx): Promise<AuthoringResult> => {
 		const lesson = await lockLesson(tx, lessonId);
 		if (!lesson) return { ok: false, message: 'That lesson no longer exists.' };
 		const moved = await ensureDbLesson(tx, lesson, authorId);
@@ -106,10 +110,16 @@ export async function publishDraft(lessonId: number, authorId: string, input: Dr
 		if (!differsFromPublished(lesson, input)) return { ok: true, message: 'Already published as it stands.' };
 		await tx
 			.update(lessons)
-			.set({ title: input.title, summary: input.summary, body: input.body, published: true, updatedAt: new Date() })
+			.set({ title: input.title, summary: input.summary, body: input.body, published: true, updatedAt: publishedAt })
 			.where(eq(lessons.id, lessonId));
+		madeLive = true;
 		return { ok: true, message: 'Published: learners now see this version.' };
 	});
+	// rendered once, here: learners read this very render
+	if (madeLive) {
+		rememberRenderedLesson({ id: lessonId, source: 'db', body: input.body, contentPath: null, updatedAt: publishedAt }, rendered);
+	}
+	return result;
 }
 
 /** Takes the lesson away from learners; its text and history stay. */
@@ -119,6 +129,7 @@ export async function unpublishLesson(lessonId: number): Promise<AuthoringResult
 		.set({ published: false, updatedAt: new Date() })
 		.where(and(eq(lessons.id, lessonId), eq(lessons.published, true)))
 		.returning({ id: lessons.id });
+	forgetRenderedLesson(lessonId);
 	return row ? { ok: true, message: 'Unpublished: learners no longer see this lesson.' } : { ok: false, message: 'The lesson is not published.' };
 }
 

@@ -1,5 +1,6 @@
 // Drizzle schema: camelCase keys over snake_case columns; row types exported beside each table.
 import { sql } from 'drizzle-orm';
+import type { AssignmentSpecInput, PlanLayout, StoredAnalysis, StoredResult, SubjectBox } from './json-types';
 import {
 	boolean,
 	index,
@@ -105,7 +106,7 @@ export const assignments = pgTable(
 		slug: text('slug').notNull().unique(),
 		title: text('title').notNull(),
 		brief: text('brief').notNull(),
-		spec: jsonb('spec').notNull(),
+		spec: jsonb('spec').$type<AssignmentSpecInput>().notNull(),
 		position: integer('position').notNull().default(0)
 	},
 	(t) => [index('assignments_lesson_idx').on(t.lessonId)]
@@ -257,13 +258,13 @@ export const attempts = pgTable(
 		/** what the learner sees: the grader's verdict, or a mentor's override */
 		verdict: text('verdict', { enum: verdicts }),
 		/** the spec graded against (assignments change; attempts keep what they were graded by) */
-		spec: jsonb('spec').notNull(),
-		subjectBox: jsonb('subject_box').$type<{ x: number; y: number; w: number; h: number }>().notNull(),
-		lightPlan: jsonb('light_plan'),
+		spec: jsonb('spec').$type<AssignmentSpecInput>().notNull(),
+		subjectBox: jsonb('subject_box').$type<SubjectBox>().notNull(),
+		lightPlan: jsonb('light_plan').$type<PlanLayout>(),
 		/** what the learner says they used (guide number, power fraction, distance in m), for a predicted subject level */
 		flashUsed: jsonb('flash_used').$type<{ gn?: number; power?: number; distance?: number }>(),
 		/** criteria results from grade() */
-		result: jsonb('result'),
+		result: jsonb('result').$type<StoredResult>(),
 		error: text('error'),
 		gradeRuns: integer('grade_runs').notNull().default(0),
 		/** 'open' until a mentor has written a critique */
@@ -296,7 +297,7 @@ export const attemptFrames = pgTable(
 		width: integer('width'),
 		height: integer('height'),
 		/** the frame as read (EXIF and pixel analysis) */
-		analysis: jsonb('analysis')
+		analysis: jsonb('analysis').$type<StoredAnalysis>()
 	},
 	(t) => [uniqueIndex('attempt_frames_name_idx').on(t.attemptId, t.name)]
 );
@@ -358,7 +359,6 @@ export type VerdictOverride = typeof verdictOverrides.$inferSelect;
 
 export const shootPlanStatuses = ['waiting', 'approved', 'returned'] as const;
 export type ShootPlanStatus = (typeof shootPlanStatuses)[number];
-type PlanPoint = { x: number; y: number };
 
 /** A learner's plan for a shoot, filed before an Assignment's uploads open; the newest one per learner and Assignment decides. */
 export const shootPlans = pgTable(
@@ -371,7 +371,7 @@ export const shootPlans = pgTable(
 		assignmentId: integer('assignment_id')
 			.notNull()
 			.references(() => assignments.id, { onDelete: 'cascade' }),
-		lightPlan: jsonb('light_plan').$type<{ camera: PlanPoint; subject: PlanPoint; lights: PlanPoint[] }>().notNull(),
+		lightPlan: jsonb('light_plan').$type<PlanLayout>().notNull(),
 		/** the settings as the learner wrote them: shutter '1/250', aperture 'f/8', ISO, flash in words */
 		settings: jsonb('settings').$type<{ shutter: string; aperture: string; iso: number; flash: string }>().notNull(),
 		story: text('story').notNull(),

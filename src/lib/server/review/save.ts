@@ -134,7 +134,7 @@ export async function saveReview(mentor: Mentor, attemptId: string, input: Revie
 		if (changed && reason.length < 5) return { ok: false, status: 400, field: 'reason', message: 'Say why you change the verdict: the learner reads it, and it is kept on record.' } as const;
 
 		// scored against the rubric of the spec this attempt was graded by
-		const rubric = cleanRubric(input.rubric, rubricFor(row.spec as Parameters<typeof rubricFor>[0]));
+		const rubric = cleanRubric(input.rubric, rubricFor(row.spec));
 		const now = new Date();
 		await tx
 			.insert(critiques)

@@ -1,15 +1,9 @@
 // Finds an Assignment in the page data by slug and shapes it for the card, tolerating missing or odd fields.
 
-/** What the Assignment card shows. */
-export interface AssignmentView {
-	slug: string;
-	title: string;
-	brief: string;
-	frames: string[];
-	criteria: string[];
-	lastVerdict: { verdict: string; at: string | null } | null;
-	uploadHref: string | null;
-}
+import type { AssignmentCard } from '$lib/lessons/page-data';
+
+/** What the Assignment card shows: the shape the lesson page sends. */
+export type AssignmentView = AssignmentCard;
 
 const strings = (v: unknown): string[] => (Array.isArray(v) ? v.filter((x): x is string => typeof x === 'string' && x.trim() !== '') : []);
 

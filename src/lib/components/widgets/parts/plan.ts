@@ -1,21 +1,13 @@
 // Light Plan layout: preset positions in metres (x right, y up the page), plan bounds, and moving items by key or pointer.
 import type { Point } from '$lib/exposure';
+import { PLAN_HALF, type PlanLayout } from '$lib/attempts/light-plan';
+
+export { MAX_LIGHTS, PLAN_HALF, type PlanLayout } from '$lib/attempts/light-plan';
 
 /** The named starting layouts lessons can ask for. */
 export const PLAN_PRESETS = ['rembrandt', 'cross', 'rim', 'on-axis'] as const;
 export type PlanPreset = (typeof PLAN_PRESETS)[number];
 
-/** Camera, subject and one to three lights; lights[0] is the key. */
-export interface PlanLayout {
-	camera: Point;
-	subject: Point;
-	lights: Point[];
-}
-
-/** Most lights a plan holds. */
-export const MAX_LIGHTS = 3;
-/** The plan spans −PLAN_HALF … +PLAN_HALF metres each way. */
-export const PLAN_HALF = 4;
 /** Drawing scale and size of the square SVG plan. */
 export const PX_PER_M = 40;
 export const PLAN_PX = 2 * PLAN_HALF * PX_PER_M;

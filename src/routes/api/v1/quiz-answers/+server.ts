@@ -1,10 +1,13 @@
-// POST /api/v1/quiz-answers: stores a signed-in learner's answer to one quiz of a lesson (the newest answer wins).
+// POST /api/v1/quiz-answers: stores a signed-in learner's answer to one quiz of a lesson (the newest answer wins),
+// checked here against the lesson's own quiz: a verdict sent by the browser is never trusted.
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { getLesson } from '$lib/server/courses';
-import { courseAccessResponse } from '$lib/server/enrolment-access';
 import { checkApiAccess } from '$lib/server/guards';
-import { lessonQuizIds } from '$lib/server/authoring/published';
+import { renderPublishedLesson } from '$lib/server/lessons/published';
+import { checkQuizAnswer } from '$lib/server/lessons/quiz';
+import { apiAccess, decideAccess } from '$lib/server/lessons/access';
+import { guardOf } from '$lib/server/lessons/page';
 import { completeIfQuizzesRight, saveQuizAnswer } from '$lib/server/progress';
 import type { RequestHandler } from './$types';
 
@@ -13,8 +16,8 @@ const answerSchema = z.object({
 	quizId: z.string().trim().min(1, 'is required').max(100, 'is too long'),
 	// the Quiz sends the number typed or the 1-based choice; the text form is kept for other clients
 	answer: z.union([z.number().finite(), z.string().trim().min(1).max(200)]),
-	// quizzes live in the lesson text and are checked in the browser: the server cannot re-check this
-	correct: z.boolean()
+	// older clients sent their own verdict: still read (a wrong type is a 400) but ignored, the server decides
+	correct: z.boolean().optional()
 });
 
 const problem = (status: number, error: string, message: string) => json({ error, message }, { status });
@@ -27,26 +30,24 @@ export const POST: RequestHandler = async ({ locals, request }) => {
 	try {
 		raw = await request.json();
 	} catch {
-		return problem(400, 'bad-request', 'Send the answer as JSON: {lessonPath, quizId, answer, correct}.');
+		return problem(400, 'bad-request', 'Send the answer as JSON: {lessonPath, quizId, answer}.');
 	}
 	const parsed = answerSchema.safeParse(raw);
 	if (!parsed.success) {
 		const first = parsed.error.issues[0];
 		return problem(400, 'bad-request', `${first.path.join('.') || 'body'} ${first.message}`.trim());
 	}
-	const { lessonPath, quizId, answer, correct } = parsed.data;
+	const { lessonPath, quizId, answer } = parsed.data;
 
 	const [, , courseSlug, lessonSlug] = lessonPath.replace(/\/$/, '').split('/');
 	const found = await getLesson(courseSlug, lessonSlug);
-	if (!found) return problem(404, 'not-found', 'There is no such lesson.');
-	if (!found.lesson.freePreview) {
-		const refused = await courseAccessResponse(access.user, found.course.id);
-		if (refused) return refused;
-	}
-	const quizIds = await lessonQuizIds(found.lesson);
-	if (quizIds && !quizIds.includes(quizId)) return problem(404, 'not-found', `This lesson has no quiz "${quizId}".`);
+	const refused = apiAccess(await decideAccess(access.user, guardOf(found)));
+	if (refused || !found) return refused!;
+	const rendered = await renderPublishedLesson(found.lesson);
+	const verdict = rendered ? checkQuizAnswer(rendered.segments, rendered.quizIds, quizId, answer) : { kind: 'no-quiz' as const };
+	if (verdict.kind === 'no-quiz') return problem(404, 'not-found', `This lesson has no quiz "${quizId}".`);
 
-	await saveQuizAnswer(access.user.id, found.lesson.id, quizId, String(answer), correct);
-	const lessonComplete = quizIds ? await completeIfQuizzesRight(access.user.id, found.lesson.id, quizIds) : false;
-	return json({ saved: true, quizId, answer: String(answer), correct, lessonComplete });
+	await saveQuizAnswer(access.user.id, found.lesson.id, quizId, String(answer), verdict.correct);
+	const lessonComplete = await completeIfQuizzesRight(access.user.id, found.lesson.id, verdict.quizIds);
+	return json({ saved: true, quizId, answer: String(answer), correct: verdict.correct, lessonComplete });
 };

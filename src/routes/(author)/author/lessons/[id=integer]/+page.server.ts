@@ -5,7 +5,7 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/guards';
 import { deleteDraftLesson, openLessonForEditing, saveLessonSettings } from '$lib/server/authoring/lessons';
 import { publishDraft, saveDraft, unpublishLesson } from '$lib/server/authoring/versions';
-import { renderLessonMarkdown } from '$lib/server/authoring/render';
+import { renderLessonMarkdown } from '$lib/server/lessons/render';
 import { checkSpecText } from '$lib/server/authoring/assignments';
 import { draftSchema, fieldErrors, settingsSchema } from '$lib/forms/authoring';
 import type { Actions, PageServerLoad } from './$types';

@@ -1,6 +1,6 @@
 // Inserting a widget or image into the lesson text keeps it on a line of its own, wherever the cursor is.
 import { describe, expect, it } from 'vitest';
-import { WIDGET_NAMES, WIDGET_ATTRIBUTES } from '$lib/lesson-widgets';
+import { WIDGET_NAMES, WIDGET_ATTRIBUTES } from '$lib/lessons/widgets';
 import { WIDGET_SNIPPETS, insertBlock } from './snippets';
 
 describe('insertBlock', () => {

@@ -1,5 +1,5 @@
 // Example widget tags the editor can insert: one per widget, with the attributes it takes (see the widget contract).
-import type { WidgetName } from '$lib/lesson-widgets';
+import type { WidgetName } from '$lib/lessons/widgets';
 
 export const WIDGET_SNIPPETS: Record<WidgetName, string> = {
 	StopLadder: '<StopLadder aperture="8" shutter="1/250" iso="100" />',

@@ -1,56 +1,16 @@
-import { error, redirect } from '@sveltejs/kit';
-import { getLesson } from '$lib/server/courses';
-import { renderPublishedLesson } from '$lib/server/authoring/published';
-import { setLessonComplete, visitLesson } from '$lib/server/progress';
-import { hasCourseAccess, requireCourseAccess } from '$lib/server/enrolment-access';
-import { requireUser, signInPath } from '$lib/server/guards';
-import { lessonAssignmentCards } from '$lib/server/attempts/history';
-import { lessonNeighbours } from '$lib/server/lesson-neighbours';
+// A lesson: its page (server/lessons/page.ts decides access and gathers it) and "I've finished this lesson".
+import { requireUser } from '$lib/server/guards';
+import { loadLessonPage, markLessonDone } from '$lib/server/lessons/page';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async ({ params, locals, url }) => {
-	const found = await getLesson(params.course, params.lesson);
-	if (!found) error(404, { message: 'There is no such lesson.' });
-	const { lesson, module, course } = found;
-	// paid access, checked before anything of the lesson is returned: others get the course page's enrol offer
-	if (!lesson.freePreview && !(await hasCourseAccess(locals.user, course.id))) {
-		redirect(303, locals.user ? `/courses/${course.slug}?locked=${encodeURIComponent(lesson.slug)}` : signInPath(url));
-	}
-	// every lesson is rendered here, files too: a client-side import would put paid text in public bundles
-	const [rendered, visit, assignmentCards, neighbours] = await Promise.all([
-		renderPublishedLesson(lesson),
-		locals.user ? visitLesson(locals.user.id, lesson.id) : null,
-		lessonAssignmentCards(locals.user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found.assignments),
-		lessonNeighbours(course.id, lesson.id)
-	]);
-	if (!rendered) error(404, { message: 'This lesson has no text yet.' });
-	return {
-		course: { slug: course.slug, title: course.title },
-		module: { slug: module.slug, title: module.title },
-		lesson: {
-			slug: lesson.slug,
-			title: lesson.title,
-			summary: lesson.summary,
-			minutes: lesson.minutes,
-			freePreview: lesson.freePreview
-		},
-		segments: rendered.segments,
-		progress: visit ? { completed: visit.completed } : null,
-		quizAnswers: visit?.quizAnswers ?? {},
-		assignments: assignmentCards,
-		neighbours
-	};
-};
+export const load: PageServerLoad = ({ params, locals, url }) => loadLessonPage(locals.user, url, params.course, params.lesson);
 
 export const actions = {
 	/** "I've finished this lesson" (done=yes) and its undo (done=no). */
 	complete: async (event) => {
 		const user = requireUser(event);
-		const found = await getLesson(event.params.course, event.params.lesson);
-		if (!found) error(404, { message: 'There is no such lesson.' });
-		if (!found.lesson.freePreview) await requireCourseAccess(user, found.course.id, found.course.slug);
 		const done = (await event.request.formData()).get('done') !== 'no';
-		await setLessonComplete(user.id, found.lesson.id, done);
+		await markLessonDone(user, event.url, event.params.course, event.params.lesson, done);
 		return { completed: done };
 	}
 } satisfies Actions;

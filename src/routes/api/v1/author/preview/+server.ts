@@ -3,7 +3,7 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { MAX_BODY_LENGTH } from '$lib/forms/authoring';
 import { checkApiAccess } from '$lib/server/guards';
-import { renderLessonMarkdown } from '$lib/server/authoring/render';
+import { renderLessonMarkdown } from '$lib/server/lessons/render';
 import type { RequestHandler } from './$types';
 
 const previewSchema = z.object({ body: z.string().max(MAX_BODY_LENGTH) });

@@ -1,12 +1,12 @@
 // An Assignment's upload page and the learner's history of attempts at it (enrolled learners and staff).
-import { error, fail } from '@sveltejs/kit';
+import { fail } from '@sveltejs/kit';
 import { message, setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { shootPlanSchema } from '$lib/forms/shoot-plan';
 import type { Notice } from '$lib/forms/review';
 import { checklistFor, fileShootPlan, latestPlan } from '$lib/server/shoot-plans';
 import { requireUser } from '$lib/server/guards';
-import { requireCourseAccess } from '$lib/server/enrolment-access';
+import { actionAccess, decideAccess, guardedAssignment } from '$lib/server/lessons/access';
 import { findLessonAssignment } from '$lib/server/attempts/assignment';
 import { listAttemptsFor } from '$lib/server/attempts/history';
 import { maxUploadBytes } from '$lib/server/attempts/limits';
@@ -16,10 +16,9 @@ import type { Actions, PageServerLoad, RequestEvent } from './$types';
 async function openAssignment(event: RequestEvent) {
 	const user = requireUser(event);
 	const { course, lesson, slug } = event.params;
-	const assignment = await findLessonAssignment(course, lesson, slug);
-	if (!assignment) error(404, { message: 'There is no such assignment.' });
-	await requireCourseAccess(user, assignment.course.id, assignment.course.slug);
-	return { user, assignment };
+	const found = await findLessonAssignment(course, lesson, slug);
+	actionAccess(await decideAccess(user, guardedAssignment(found)), { url: event.url, courseSlug: course, missing: 'There is no such assignment.' });
+	return { user, assignment: found! };
 }
 
 async function shootPlanState(userId: string, assignment: { id: number; spec: AssignmentSpec | null }) {

@@ -1,8 +1,10 @@
-// Renders lesson Markdown written in the browser: mdsvex compiles the prose, which is sanitised into HTML
-// segments; widget tags on their own lines become allow-listed widget segments with string props. Nothing runs.
-import { compile } from 'mdsvex';
-import type { LessonSegment } from '$lib/lesson-widgets';
-import { isWidgetName } from '$lib/lesson-widgets';
+// Renders lesson Markdown (a course file's or one written in the browser): mdsvex compiles the prose, off the request
+// thread and bounded in cost and time, which is sanitised into HTML segments; widget tags on their own lines become
+// allow-listed widget segments with string props. Nothing runs.
+import { compileInPool, type CompiledChunk } from './compile-pool';
+import { renderCostProblem } from './render-cost';
+import type { LessonSegment } from '$lib/lessons/widgets';
+import { isWidgetName } from '$lib/lessons/widgets';
 import { sanitiseLessonHtml } from './sanitise';
 import { TAG_START, readWidgetTag } from './widget-tag';
 
@@ -19,17 +21,48 @@ const TAG_WINDOW_LINES = 40;
 // a fenced code block opens with three or more backticks or tildes; widget tags inside it are example text
 const FENCE = /^ {0,3}(`{3,}|~{3,})/;
 
+// a note is a widget tag's problem, kept in its place so problems read in the order of the text
+type Piece = { kind: 'prose'; source: string; firstLine: number } | { kind: 'note'; text: string } | Extract<LessonSegment, { kind: 'widget' }>;
+
 export async function renderLessonMarkdown(markdown: string): Promise<RenderedLesson> {
-	const lines = markdown.replace(/\r\n?/g, '\n').split('\n');
-	const segments: LessonSegment[] = [];
+	const tooHeavy = renderCostProblem(markdown);
+	// refused before any compiling: the whole text as plain text, and why
+	if (tooHeavy) return { segments: [{ kind: 'html', html: plainText(markdown) }], problems: [tooHeavy], quizIds: [] };
+
 	const problems: string[] = [];
+	const pieces = splitPieces(markdown);
+	const prose = pieces.filter((p): p is Extract<Piece, { kind: 'prose' }> => p.kind === 'prose');
+	const compiled = await compileInPool(prose.map((p) => p.source));
+	if (!compiled.ok) problems.push(compiled.message);
+	const segments: LessonSegment[] = [];
+	let next = 0;
+	for (const piece of pieces) {
+		if (piece.kind === 'note') {
+			problems.push(piece.text);
+			continue;
+		}
+		if (piece.kind === 'widget') {
+			segments.push(piece);
+			continue;
+		}
+		const result = compiled.ok ? compiled.chunks[next++] : null;
+		const html = (result ? proseHtml(result, piece.source, piece.firstLine, problems) : plainText(piece.source)).trim();
+		if (html) segments.push({ kind: 'html', html });
+	}
+	return { segments, problems, quizIds: collectQuizIds(segments, problems) };
+}
+
+/** The text cut into prose stretches (blank ones dropped), widget tags and their problems, in order. */
+function splitPieces(markdown: string): Piece[] {
+	const lines = markdown.replace(/\r\n?/g, '\n').split('\n');
+	const pieces: Piece[] = [];
 	let chunk: string[] = [];
 	let chunkStart = 1;
 	let fence: { char: string; length: number } | null = null;
 
-	const flush = async (nextLine: number) => {
-		const html = (await renderProse(chunk.join('\n'), chunkStart, problems)).trim();
-		if (html) segments.push({ kind: 'html', html });
+	const flush = (nextLine: number) => {
+		const source = chunk.join('\n');
+		if (source.trim()) pieces.push({ kind: 'prose', source, firstLine: chunkStart });
 		chunk = [];
 		chunkStart = nextLine;
 	};
@@ -43,10 +76,10 @@ export async function renderLessonMarkdown(markdown: string): Promise<RenderedLe
 			const mark = FENCE.exec(line)![1];
 			fence = { char: mark[0], length: mark.length };
 		} else if (TAG_START.test(line)) {
-			await flush(i + 1);
+			flush(i + 1);
 			const tag = readWidgetTag(lines.slice(i, i + TAG_WINDOW_LINES).join('\n'), i + 1);
-			problems.push(...tag.problems);
-			if (tag.kind === 'widget') segments.push({ kind: 'widget', name: tag.name, props: tag.props });
+			for (const text of tag.problems) pieces.push({ kind: 'note', text });
+			if (tag.kind === 'widget') pieces.push({ kind: 'widget', name: tag.name, props: tag.props });
 			i += linesIn(lines.slice(i, i + TAG_WINDOW_LINES).join('\n').slice(0, tag.length));
 			chunkStart = i + 1;
 			continue;
@@ -54,8 +87,8 @@ export async function renderLessonMarkdown(markdown: string): Promise<RenderedLe
 		chunk.push(line);
 		i++;
 	}
-	await flush(lines.length + 1);
-	return { segments, problems, quizIds: collectQuizIds(segments, problems) };
+	flush(lines.length + 1);
+	return pieces;
 }
 
 /** How many lines a slice that ends at a line end (or the text's end) spans. */
@@ -79,25 +112,24 @@ function collectQuizIds(segments: LessonSegment[], problems: string[]): string[]
 // mdsvex turns frontmatter into this module script; it is ours to drop, not the author's code to report
 const FRONTMATTER_SCRIPT = /^\s*<script context="module">\s*export const metadata = .*;\s*const \{[^}]*\} = metadata;\s*<\/script>/;
 
-/** One stretch of prose between widgets → sanitised HTML, noting what the sanitiser is about to leave out. */
-async function renderProse(source: string, firstLine: number, problems: string[]): Promise<string> {
-	if (!source.trim()) return '';
-	let code: string;
-	try {
-		const out = await compile(source, { smartypants: false, highlight: false });
-		code = out?.code ?? '';
-		const fm = (out?.data as { fm?: Record<string, unknown> } | undefined)?.fm;
-		if (fm && Object.keys(fm).length > 0) {
-			problems.push(`Line ${firstLine}: frontmatter (--- … ---) is not used in the browser: set the title and summary in the fields above.`);
-			code = code.replace(FRONTMATTER_SCRIPT, '');
-		}
-	} catch (e) {
-		const detail = e instanceof Error ? e.message.split('\n')[0] : String(e);
-		problems.push(`Line ${firstLine}: this part could not be read as Markdown (${detail}); it is shown as plain text.`);
-		return sanitiseLessonHtml(`<p>${escapeHtml(source)}</p>`);
+/** One compiled stretch of prose between widgets → sanitised HTML, noting what the sanitiser is about to leave out. */
+function proseHtml(result: CompiledChunk, source: string, firstLine: number, problems: string[]): string {
+	if (!result.ok) {
+		problems.push(`Line ${firstLine}: this part could not be read as Markdown (${result.message}); it is shown as plain text.`);
+		return plainText(source);
+	}
+	let code = result.code;
+	if (result.frontmatter) {
+		problems.push(`Line ${firstLine}: frontmatter (--- … ---) is not used in the browser: set the title and summary in the fields above.`);
+		code = code.replace(FRONTMATTER_SCRIPT, '');
 	}
 	noteLeftOut(code, source, firstLine, problems);
 	return sanitiseLessonHtml(code);
+}
+
+/** Text shown as it stands, escaped. */
+function plainText(source: string): string {
+	return sanitiseLessonHtml(`<p>${escapeHtml(source)}</p>`);
 }
 
 const REFUSED_HTML: [RegExp, string][] = [

@@ -1,6 +1,15 @@
-// The Markdown of a lesson file in content/ without its frontmatter: where a lesson edited in the browser starts from.
+// A lesson's Markdown: its published body (a database lesson) or its file in content/ without the frontmatter.
 import { readFile } from 'node:fs/promises';
 import { join, relative, resolve, sep } from 'node:path';
+
+/** What a lesson's text is read from. */
+export type LessonSourceRef = { source: 'file' | 'db'; body: string | null; contentPath: string | null };
+
+/** The text learners read: the published body, or for a file lesson the file's Markdown; null when unreadable. */
+export async function readLessonSource(lesson: LessonSourceRef): Promise<string | null> {
+	if (lesson.source === 'db') return lesson.body ?? '';
+	return lesson.contentPath ? readLessonFileBody(lesson.contentPath) : null;
+}
 
 /** Drops a leading `---` … `---` YAML block and the blank lines after it. */
 export function stripFrontmatter(text: string): string {

@@ -2,7 +2,7 @@
 import { readFile, readdir } from 'node:fs/promises';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { stripFrontmatter } from './file-body';
+import { stripFrontmatter } from './source';
 import { renderLessonMarkdown } from './render';
 
 describe('renderLessonMarkdown', () => {

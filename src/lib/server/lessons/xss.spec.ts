@@ -2,7 +2,7 @@
 // OWASP XSS Filter Evasion Cheat Sheet (and Markdown/Svelte-specific ones) come out inert.
 import { compile } from 'mdsvex';
 import { describe, expect, it } from 'vitest';
-import { WIDGET_ATTRIBUTES, type LessonSegment } from '$lib/lesson-widgets';
+import { WIDGET_ATTRIBUTES, type LessonSegment } from '$lib/lessons/widgets';
 import { renderLessonMarkdown } from './render';
 
 /** Numeric character references as browsers read them in attributes: the semicolon is optional. */

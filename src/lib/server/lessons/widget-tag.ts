@@ -1,5 +1,5 @@
 // Reads a lesson widget tag standing on its own line(s): its name and plain-string attributes, refusing everything else.
-import { WIDGET_ATTRIBUTES, WIDGET_NAMES, isWidgetName, type WidgetName } from '$lib/lesson-widgets';
+import { WIDGET_ATTRIBUTES, WIDGET_NAMES, isWidgetName, type WidgetName } from '$lib/lessons/widgets';
 
 /** What one tag became: a widget to mount, or nothing (an unknown or unreadable tag), with the reasons. */
 export type WidgetTag =
