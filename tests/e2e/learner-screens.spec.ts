@@ -79,6 +79,7 @@ test('a new visitor sees the course guide, then signs up, enrols and sends two A
 	await expect(blue.locator('[data-gear="trigger"]')).toHaveCount(1);
 
 	await page.getByRole('link', { name: 'Create an account' }).click();
+	await expect(page).toHaveURL(/\/signup\?redirectTo=%2Fcourses%2Fdaylight-flash-for-action$/);
 	// the mailed link confirms the address, signs in and comes back to the course
 	await signUpAndConfirm(page, 'Sam Okoro', email, password);
 	await expect(page).toHaveURL(new RegExp(`/courses/${COURSE}$`));
