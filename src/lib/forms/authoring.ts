@@ -1,4 +1,4 @@
-// Authoring form schemas: lesson drafts, lesson settings, new lessons and assignments (server-authoritative).
+// Authoring form schemas: lesson drafts, lesson settings, new lessons and assignments (superforms + zod where converted).
 import { z } from 'zod';
 
 /** Long lessons are fine; a body this size is a paste gone wrong, and it would slow every preview. */
@@ -14,9 +14,10 @@ const slug = z
 
 const title = z.string().trim().min(1, 'Give it a title.').max(120, 'Use at most 120 characters.');
 const summary = z.string().trim().max(400, 'Use at most 400 characters.');
-const minutes = z.coerce.number({ error: 'Minutes must be a number.' }).int('Use whole minutes.').min(1, 'At least 1 minute.').max(240, 'At most 240 minutes.');
-/** An HTML checkbox sends "on" when ticked and nothing when not. */
-const checkbox = z.preprocess((v) => v === 'on' || v === 'true' || v === true, z.boolean());
+/** superforms reads the typed text as a number; an empty field arrives as 0 and gets the "at least" message */
+const minutes = z.number({ error: 'Minutes must be a number.' }).int('Use whole minutes.').min(1, 'At least 1 minute.').max(240, 'At most 240 minutes.');
+/** an unticked box sends nothing: missing means off (superforms reads "on" as true) */
+const checkbox = z.boolean().default(false);
 
 export const draftSchema = z.object({
 	title,
@@ -30,11 +31,12 @@ export const settingsSchema = z.object({ minutes, freePreview: checkbox });
 export type SettingsInput = z.infer<typeof settingsSchema>;
 
 export const newLessonSchema = z.object({
-	moduleId: z.coerce.number().int().positive('Choose a module.'),
+	/** a PostgreSQL integer key: anything outside it names no module */
+	moduleId: z.number({ error: 'Choose a module.' }).int('Choose a module.').positive('Choose a module.').max(2_147_483_647, 'Choose a module.'),
 	title,
 	slug,
 	summary,
-	minutes,
+	minutes: minutes.default(10),
 	freePreview: checkbox
 });
 export type NewLessonInput = z.infer<typeof newLessonSchema>;

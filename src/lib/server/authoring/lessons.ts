@@ -22,7 +22,7 @@ export async function openLessonForEditing(lessonId: number) {
 	return { ...row, draft, assignments: lessonAssignments, unpublishedChanges: differsFromPublished(row.lesson, draft) };
 }
 
-export type CreateResult = { ok: true; lessonId: number } | { ok: false; field: string; message: string };
+export type CreateResult = { ok: true; lessonId: number } | { ok: false; field: 'moduleId' | 'slug'; message: string };
 
 /** A new lesson, written in the browser from the start: unpublished, at the end of its module. */
 export async function createLesson(input: NewLessonInput, authorId: string): Promise<CreateResult> {

@@ -2,6 +2,8 @@
 import { recordAudit } from '$lib/server/audit';
 import { db } from '$lib/server/db';
 import { error, fail, redirect } from '@sveltejs/kit';
+import { message, setError, superValidate } from 'sveltekit-superforms';
+import { zod4 } from 'sveltekit-superforms/adapters';
 import { requireRole } from '$lib/server/guards';
 import { deleteDraftLesson, openLessonForEditing, saveLessonSettings } from '$lib/server/authoring/lessons';
 import { publishDraft, saveDraft, unpublishLesson } from '$lib/server/authoring/versions';
@@ -21,6 +23,7 @@ export const load: PageServerLoad = async (event) => {
 	const found = await openLessonForEditing(Number(event.params.id));
 	if (!found) error(404, { message: 'There is no such lesson.' });
 	const { lesson, module, course, draft, assignments, unpublishedChanges } = found;
+	const settingsForm = await superValidate({ minutes: lesson.minutes, freePreview: lesson.freePreview }, zod4(settingsSchema), { id: 'lesson-settings', errors: false });
 	return {
 		lesson: {
 			id: lesson.id,
@@ -43,6 +46,7 @@ export const load: PageServerLoad = async (event) => {
 		}),
 		// tells the Quiz widget not to store answers given in the preview
 		lessonPreview: true,
+		settingsForm,
 		notice: notices[event.url.searchParams.get('notice') ?? ''] ?? null
 	};
 };
@@ -79,11 +83,11 @@ export const actions = {
 	},
 	settings: async (event) => {
 		const user = requireRole(event, 'author');
-		const parsed = settingsSchema.safeParse(Object.fromEntries(await event.request.formData()));
-		if (!parsed.success) return fail(400, { settings: { ok: false, message: 'Settings not saved.', errors: fieldErrors(parsed.error) } });
-		const saved = await saveLessonSettings(Number(event.params.id), user.id, parsed.data);
-		if (!saved.ok) return fail(400, { settings: { ok: false, message: saved.message } });
-		return { settings: { ok: true, message: saved.message } };
+		const form = await superValidate(event.request, zod4(settingsSchema), { id: 'lesson-settings' });
+		if (!form.valid) return setError(form, 'Settings not saved.');
+		const saved = await saveLessonSettings(Number(event.params.id), user.id, form.data);
+		if (!saved.ok) return setError(form, saved.message);
+		return message(form, saved.message);
 	},
 	delete: async (event) => {
 		requireRole(event, 'author');

@@ -1,0 +1,108 @@
+// The author's forms (superforms + zod): a bad form answers 400 with the message beside its field, keeps what was
+// typed and stores nothing; a good one is stored; a second identical submit does not make a second lesson.
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { and, eq, like } from 'drizzle-orm';
+import { db } from '$lib/server/db';
+import { courses, lessons, modules } from '$lib/server/db/schema';
+import { actions as newLessonActions } from '../../src/routes/(author)/author/lessons/new/+page.server';
+import { actions as editorActions } from '../../src/routes/(author)/author/lessons/[id=integer]/+page.server';
+import { demoAccount, signedInCookies } from './support/people';
+import { failureOf, makeEvent, throughHooks, type Outcome, type TestCookies } from './support/request-event';
+
+const COURSE = 'daylight-flash-for-action';
+const prefix = `t-forms-${Date.now().toString(36)}`;
+let moduleId: number;
+let author: TestCookies;
+
+type FormResult = { form: { valid: boolean; data: Record<string, unknown>; errors: Record<string, string[] | undefined>; message?: unknown } };
+
+beforeAll(async () => {
+	author = await signedInCookies(demoAccount('author').email);
+	const [mod] = await db
+		.select({ id: modules.id })
+		.from(modules)
+		.innerJoin(courses, eq(modules.courseId, courses.id))
+		.where(and(eq(courses.slug, COURSE), eq(modules.slug, 'bringing-your-own-light')));
+	moduleId = mod.id;
+});
+
+afterAll(async () => {
+	await db.delete(lessons).where(like(lessons.slug, `${prefix}%`));
+});
+
+function createLesson(form: Record<string, string>, cookies = author) {
+	const event = makeEvent({ path: '/author/lessons/new', form, cookies });
+	return throughHooks(event, (e) => newLessonActions.default(e as never));
+}
+
+function saveSettings(lessonId: number, form: Record<string, string>) {
+	const event = makeEvent({ path: `/author/lessons/${lessonId}?/settings`, form, cookies: author, params: { id: String(lessonId) } });
+	return throughHooks(event, (e) => editorActions.settings(e as never));
+}
+
+const failed = (outcome: Outcome<unknown>) => failureOf((outcome as { value: unknown }).value) as { status: number; data: FormResult } | null;
+const lessonsNamed = (slug: string) => db.select().from(lessons).where(eq(lessons.slug, slug));
+
+describe('new lesson form', () => {
+	test('a bad form names each wrong field, keeps what was typed and stores nothing', async () => {
+		const slug = `${prefix}-Bad Slug`;
+		const outcome = failed(await createLesson({ moduleId: String(moduleId), title: '', slug, summary: 'Kept summary', minutes: '0' }));
+		expect(outcome?.status).toBe(400);
+		expect(outcome?.data.form.errors).toMatchObject({
+			title: ['Give it a title.'],
+			slug: [expect.stringMatching(/^Use lower-case letters/)],
+			minutes: ['At least 1 minute.']
+		});
+		expect(outcome?.data.form.data).toMatchObject({ summary: 'Kept summary', minutes: 0, moduleId });
+		expect(await db.select().from(lessons).where(like(lessons.slug, `${prefix}%`))).toEqual([]);
+	});
+
+	test('text where a number belongs is a field message, not a crash', async () => {
+		const outcome = failed(await createLesson({ moduleId: 'abc', title: 'T', slug: `${prefix}-nan`, summary: '', minutes: 'ten' }));
+		expect(outcome?.status).toBe(400);
+		expect(outcome?.data.form.errors).toMatchObject({ moduleId: ['Choose a module.'], minutes: [expect.any(String)] });
+		const outside = failed(await createLesson({ moduleId: '99999999999', title: 'T', slug: `${prefix}-big`, summary: '', minutes: '5' }));
+		expect(outside?.data.form.errors).toMatchObject({ moduleId: ['Choose a module.'] });
+		const gone = failed(await createLesson({ moduleId: '999999', title: 'T', slug: `${prefix}-gone`, summary: '', minutes: '5' }));
+		expect(gone?.status).toBe(400);
+		expect(gone?.data.form.errors).toMatchObject({ moduleId: ['That module no longer exists.'] });
+	});
+
+	test('a good form makes one lesson (open when ticked); the same form again is refused on its slug', async () => {
+		const slug = `${prefix}-dock`;
+		const form = { moduleId: String(moduleId), title: 'Reach at the dock', slug, summary: 'Close light.', minutes: '7', freePreview: 'on' };
+		const made = await createLesson(form);
+		expect(made).toMatchObject({ kind: 'redirect', status: 303, location: expect.stringMatching(/^\/author\/lessons\/\d+\?notice=created$/) });
+		const [row] = await lessonsNamed(slug);
+		expect(row).toMatchObject({ title: 'Reach at the dock', minutes: 7, freePreview: true, published: false, moduleId });
+		const again = failed(await createLesson(form));
+		expect(again?.data.form.errors).toMatchObject({ slug: ['Another lesson in this course has that slug.'] });
+		expect(await lessonsNamed(slug)).toHaveLength(1);
+	});
+
+	test('only an author may use it', async () => {
+		const learner = await signedInCookies(demoAccount('learner').email);
+		const slug = `${prefix}-learner`;
+		const outcome = await createLesson({ moduleId: String(moduleId), title: 'Not mine', slug, summary: '', minutes: '5' }, learner);
+		expect(outcome).toMatchObject({ kind: 'error', status: 403 });
+		expect(await lessonsNamed(slug)).toEqual([]);
+	});
+});
+
+describe('lesson settings form', () => {
+	test('bad minutes are named and change nothing; good ones apply, an unticked box switches the open lesson off', async () => {
+		const slug = `${prefix}-settings`;
+		await createLesson({ moduleId: String(moduleId), title: 'Settings', slug, summary: '', minutes: '10', freePreview: 'on' });
+		const [row] = await lessonsNamed(slug);
+
+		const bad = failed(await saveSettings(row.id, { minutes: '999', freePreview: 'on' }));
+		expect(bad?.status).toBe(400);
+		expect(bad?.data.form.errors).toMatchObject({ minutes: ['At most 240 minutes.'], _errors: ['Settings not saved.'] });
+		expect(bad?.data.form.data).toMatchObject({ minutes: 999, freePreview: true });
+		expect((await lessonsNamed(slug))[0]).toMatchObject({ minutes: 10, freePreview: true });
+
+		const good = await saveSettings(row.id, { minutes: '12' });
+		expect(good).toMatchObject({ kind: 'value', value: { form: { valid: true, message: expect.any(String) } } });
+		expect((await lessonsNamed(slug))[0]).toMatchObject({ minutes: 12, freePreview: false });
+	});
+});
