@@ -118,7 +118,7 @@ describe('admin enrolments by hand', () => {
 		const learner = await freshLearner();
 		const user = { id: learner.id, roles: ['learner' as const] };
 		const granted = await act('grant', { email: learner.email.toUpperCase(), course: slug });
-		expect(granted).toMatchObject({ kind: 'value', value: { grant: { ok: true } } });
+		expect(granted).toMatchObject({ kind: 'value', value: { form: { valid: true, message: expect.stringMatching(/is enrolled in/) } } });
 		const [row] = await db.select().from(enrolments).where(eq(enrolments.userId, learner.id));
 		expect(row).toMatchObject({ status: 'active', source: 'admin', paymentId: null });
 		expect(await hasCourseAccess(user, courseId)).toBe(true);
@@ -136,11 +136,18 @@ describe('admin enrolments by hand', () => {
 
 	test('bad input gets a message and changes nothing; non-admins are refused', async () => {
 		const unknown = await act('grant', { email: 'nobody-here@test.example', course: slug });
-		expect(failureOf((unknown as { value: unknown }).value)).toMatchObject({ status: 400, data: { grant: { ok: false, text: expect.stringMatching(/Nobody has an account/) } } });
-		const notEmail = await act('grant', { email: 'not an address', course: slug });
-		expect(failureOf((notEmail as { value: unknown }).value)).toMatchObject({ status: 400 });
+		expect(failureOf((unknown as { value: unknown }).value)).toMatchObject({
+			status: 400,
+			data: { form: { errors: { email: [expect.stringMatching(/Nobody has an account/)] } } }
+		});
+		const notEmail = await act('grant', { email: 'not an address', course: slug, reason: 'kept' });
+		// the message sits beside the field, and what was typed comes back
+		expect(failureOf((notEmail as { value: unknown }).value)).toMatchObject({
+			status: 400,
+			data: { form: { errors: { email: ['Enter the learner’s e-mail address.'] }, data: { email: 'not an address', course: slug, reason: 'kept' } } }
+		});
 		const noCourse = await act('grant', { email: payer.email, course: 'no-such-course' });
-		expect(failureOf((noCourse as { value: unknown }).value)).toMatchObject({ status: 400, data: { grant: { text: 'That course does not exist.' } } });
+		expect(failureOf((noCourse as { value: unknown }).value)).toMatchObject({ status: 400, data: { form: { errors: { course: ['That course does not exist.'] } } } });
 		const badStatus = await act('setStatus', { enrolmentId: '1', status: 'deleted' });
 		expect(failureOf((badStatus as { value: unknown }).value)).toMatchObject({ status: 400 });
 		expect(await db.select().from(enrolments).where(eq(enrolments.userId, payer.id))).toEqual([]);

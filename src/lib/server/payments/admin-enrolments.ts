@@ -59,22 +59,18 @@ export async function listEnrolments(query: EnrolmentsQuery) {
 	return { enrolments: rows, total, pages: Math.max(1, Math.ceil(total / enrolmentsPageSize)), courses: courseList };
 }
 
-export const grantSchema = z.object({
-	email: z.string().trim().toLowerCase().max(254).pipe(z.email('Enter the learner’s e-mail address.')),
-	course: z.string().trim().min(1, 'Choose a course.').max(100),
-	reason: z.string().trim().max(500, 'Keep the reason under 500 characters.').default('')
-});
-
 export type ChangeResult = { ok: true; message: string } | { ok: false; message: string };
+/** a refused grant names the field that was wrong, so the form shows the message beside it */
+export type GrantResult = { ok: true; message: string } | { ok: false; field: 'email' | 'course'; message: string };
 
 type Actor = { id: string; email: string };
 
 /** Opens a course to a person by hand (a scholarship, a mentor's guest); the audit log keeps who did it and why. */
-export async function grantEnrolment(actor: Actor, email: string, courseSlug: string, reason = ''): Promise<ChangeResult> {
+export async function grantEnrolment(actor: Actor, email: string, courseSlug: string, reason = ''): Promise<GrantResult> {
 	const [user] = await db.select({ id: users.id, name: users.name }).from(users).where(eq(sql`lower(${users.email})`, email.toLowerCase()));
-	if (!user) return { ok: false, message: `Nobody has an account with ${email}.` };
+	if (!user) return { ok: false, field: 'email', message: `Nobody has an account with ${email}.` };
 	const course = await db.query.courses.findFirst({ where: eq(courses.slug, courseSlug) });
-	if (!course) return { ok: false, message: 'That course does not exist.' };
+	if (!course) return { ok: false, field: 'course', message: 'That course does not exist.' };
 	await db.transaction(async (tx) => {
 		await activateEnrolment(tx, { userId: user.id, courseId: course.id, source: 'admin', paymentId: null });
 		await recordAudit(tx, actor, { action: 'enrolment.grant', subject: `${email} in ${course.title}`, reason, href: `/admin/enrolments?q=${encodeURIComponent(email)}` });

@@ -1,26 +1,28 @@
 // Enrolment list (filters from URL params); grant access by hand, revoke or restore it.
 import { fail } from '@sveltejs/kit';
+import { message, setError, superValidate } from 'sveltekit-superforms';
+import { zod4 } from 'sveltekit-superforms/adapters';
 import { requireRole } from '$lib/server/guards';
-import { grantEnrolment, grantSchema, listEnrolments, readEnrolmentsQuery, setEnrolmentStatus } from '$lib/server/payments/admin-enrolments';
+import { grantEnrolment, listEnrolments, readEnrolmentsQuery, setEnrolmentStatus } from '$lib/server/payments/admin-enrolments';
+import { grantSchema } from '$lib/forms/enrolments';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'admin');
 	const query = readEnrolmentsQuery(event.url.searchParams);
-	return { query, ...(await listEnrolments(query)) };
+	const listed = await listEnrolments(query);
+	const grantForm = await superValidate({ course: listed.courses[0]?.slug ?? '' }, zod4(grantSchema), { id: 'grant', errors: false });
+	return { query, ...listed, grantForm };
 };
 
 export const actions = {
 	grant: async (event) => {
 		const admin = requireRole(event, 'admin');
-		const data = await event.request.formData();
-		const email = String(data.get('email') ?? '');
-		const course = String(data.get('course') ?? '');
-		const parsed = grantSchema.safeParse({ email, course, reason: String(data.get('reason') ?? '') });
-		if (!parsed.success) return fail(400, { grant: { ok: false, text: parsed.error.issues[0]?.message ?? 'Check the form.', email } });
-		const result = await grantEnrolment(admin, parsed.data.email, parsed.data.course, parsed.data.reason);
-		if (!result.ok) return fail(400, { grant: { ok: false, text: result.message, email } });
-		return { grant: { ok: true, text: result.message, email: '' } };
+		const form = await superValidate(event.request, zod4(grantSchema), { id: 'grant' });
+		if (!form.valid) return fail(400, { form });
+		const result = await grantEnrolment(admin, form.data.email, form.data.course, form.data.reason);
+		if (!result.ok) return setError(form, result.field, result.message);
+		return message(form, result.message);
 	},
 	setStatus: async (event) => {
 		const admin = requireRole(event, 'admin');
