@@ -3,9 +3,11 @@
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { and, eq, like } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { courses, lessons, modules } from '$lib/server/db/schema';
+import { assignments, courses, lessons, modules } from '$lib/server/db/schema';
 import { actions as newLessonActions } from '../../src/routes/(author)/author/lessons/new/+page.server';
 import { actions as editorActions } from '../../src/routes/(author)/author/lessons/[id=integer]/+page.server';
+import { actions as newAssignmentActions } from '../../src/routes/(author)/author/lessons/[id=integer]/assignments/new/+page.server';
+import { actions as assignmentActions } from '../../src/routes/(author)/author/assignments/[id=integer]/+page.server';
 import { demoAccount, signedInCookies } from './support/people';
 import { failureOf, makeEvent, throughHooks, type Outcome, type TestCookies } from './support/request-event';
 
@@ -27,6 +29,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
+	await db.delete(assignments).where(like(assignments.slug, `${prefix}%`));
 	await db.delete(lessons).where(like(lessons.slug, `${prefix}%`));
 });
 
@@ -104,5 +107,67 @@ describe('lesson settings form', () => {
 		const good = await saveSettings(row.id, { minutes: '12' });
 		expect(good).toMatchObject({ kind: 'value', value: { form: { valid: true, message: expect.any(String) } } });
 		expect((await lessonsNamed(slug))[0]).toMatchObject({ minutes: 12, freePreview: false });
+	});
+});
+
+describe('assignment forms', () => {
+	const VALID_SPEC = JSON.stringify({ frames: ['reference', 'lit'], criteria: [{ kind: 'ambient-under', stops: 1.5 }] });
+	// one criterion asks for more underexposure than the checker allows (at most 6 stops)
+	const BAD_SPEC = JSON.stringify({ frames: ['reference', 'lit'], criteria: [{ kind: 'ambient-under', stops: 9 }] });
+	type Notice = { ok: boolean; text: string; specErrors?: { path: string; message: string }[] };
+	let lessonId: number;
+
+	beforeAll(async () => {
+		await createLesson({ moduleId: String(moduleId), title: 'Assignments here', slug: `${prefix}-assign`, summary: '', minutes: '5' });
+		lessonId = (await lessonsNamed(`${prefix}-assign`))[0].id;
+	});
+
+	function newAssignment(form: Record<string, string>) {
+		const event = makeEvent({ path: `/author/lessons/${lessonId}/assignments/new`, form, cookies: author, params: { id: String(lessonId) } });
+		return throughHooks(event, (e) => newAssignmentActions.default(e as never));
+	}
+	function saveAssignment(id: number, form: Record<string, string>) {
+		const event = makeEvent({ path: `/author/assignments/${id}`, form, cookies: author, params: { id: String(id) } });
+		return throughHooks(event, (e) => assignmentActions.default(e as never));
+	}
+	const assignmentsNamed = (slug: string) => db.select().from(assignments).where(eq(assignments.slug, slug));
+
+	test('a new one with wrong fields names them, keeps the text and stores nothing', async () => {
+		const outcome = failed(await newAssignment({ slug: 'Not A Slug', title: '', brief: 'Kept brief', spec: VALID_SPEC }));
+		expect(outcome?.status).toBe(400);
+		expect(outcome?.data.form.errors).toMatchObject({ slug: [expect.stringMatching(/^Use lower-case/)], title: ['Give it a title.'] });
+		expect(outcome?.data.form.data).toMatchObject({ brief: 'Kept brief', spec: VALID_SPEC });
+		expect(outcome?.data.form.message).toMatchObject({ ok: false, text: 'Nothing was saved: check the fields marked.' });
+		expect(await db.select().from(assignments).where(like(assignments.slug, `${prefix}%`))).toEqual([]);
+	});
+
+	test('a spec with a problem says where it is and stores nothing; a good one is made once', async () => {
+		const slug = `${prefix}-freeze`;
+		const bad = failed(await newAssignment({ slug, title: 'Freeze', brief: 'Shoot it.', spec: BAD_SPEC }));
+		expect(bad?.status).toBe(400);
+		expect(bad?.data.form.message as Notice).toMatchObject({ ok: false, specErrors: [expect.objectContaining({ path: expect.stringContaining('criteria') })] });
+		expect(bad?.data.form.data).toMatchObject({ spec: BAD_SPEC });
+		expect(await assignmentsNamed(slug)).toEqual([]);
+
+		const made = await newAssignment({ slug, title: 'Freeze', brief: 'Shoot it.', spec: VALID_SPEC });
+		expect(made).toMatchObject({ kind: 'redirect', status: 303, location: expect.stringMatching(/^\/author\/assignments\/\d+\?notice=created$/) });
+		const again = failed(await newAssignment({ slug, title: 'Freeze', brief: 'Shoot it.', spec: VALID_SPEC }));
+		expect(again?.data.form.errors).toMatchObject({ slug: ['Another assignment already has that slug.'] });
+		expect(await assignmentsNamed(slug)).toHaveLength(1);
+	});
+
+	test('editing: a bad spec changes nothing; a good edit is saved with a message', async () => {
+		const [row] = await assignmentsNamed(`${prefix}-freeze`);
+		const bad = failed(await saveAssignment(row.id, { title: 'Changed', brief: 'Changed brief', spec: BAD_SPEC }));
+		expect(bad?.status).toBe(400);
+		expect(bad?.data.form.data).toMatchObject({ title: 'Changed', brief: 'Changed brief' });
+		expect((await assignmentsNamed(`${prefix}-freeze`))[0]).toMatchObject({ title: 'Freeze', brief: 'Shoot it.' });
+
+		const empty = failed(await saveAssignment(row.id, { title: 'Changed', brief: '', spec: VALID_SPEC }));
+		expect(empty?.data.form.errors).toMatchObject({ brief: ['Write a brief: what to shoot and why.'] });
+
+		const good = await saveAssignment(row.id, { title: 'Freeze the rower', brief: 'Shoot it fast.', spec: VALID_SPEC });
+		expect(good).toMatchObject({ kind: 'value', value: { form: { valid: true, message: { ok: true, text: expect.stringMatching(/^Assignment saved/) } } } });
+		expect((await assignmentsNamed(`${prefix}-freeze`))[0]).toMatchObject({ title: 'Freeze the rower', brief: 'Shoot it fast.' });
 	});
 });

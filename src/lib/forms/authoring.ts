@@ -46,7 +46,12 @@ export const assignmentFieldsSchema = z.object({
 	brief: z.string().trim().min(1, 'Write a brief: what to shoot and why.').max(4000, 'Use at most 4000 characters.'),
 	spec: z.string().max(50_000, 'The spec is too long.')
 });
+export type AssignmentFieldsInput = z.infer<typeof assignmentFieldsSchema>;
 export const newAssignmentSchema = assignmentFieldsSchema.extend({ slug });
+export type NewAssignmentInput = z.infer<typeof newAssignmentSchema>;
+
+/** An Assignment form's message: the text, whether it saved, and the spec's problems by path when it did not. */
+export type AssignmentNotice = { ok: boolean; text: string; specErrors?: { path: string; message: string }[] };
 
 /** Field name → first message, for showing next to each field. */
 export function fieldErrors(error: z.ZodError): Record<string, string> {
