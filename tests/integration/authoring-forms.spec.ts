@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { and, eq, like } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { assignments, courses, lessons, modules } from '$lib/server/db/schema';
+import { assignments, courses, lessonVersions, lessons, modules } from '$lib/server/db/schema';
 import { actions as newLessonActions } from '../../src/routes/(author)/author/lessons/new/+page.server';
 import { actions as editorActions } from '../../src/routes/(author)/author/lessons/[id=integer]/+page.server';
 import { actions as newAssignmentActions } from '../../src/routes/(author)/author/lessons/[id=integer]/assignments/new/+page.server';
@@ -169,5 +169,37 @@ describe('assignment forms', () => {
 		const good = await saveAssignment(row.id, { title: 'Freeze the rower', brief: 'Shoot it fast.', spec: VALID_SPEC });
 		expect(good).toMatchObject({ kind: 'value', value: { form: { valid: true, message: { ok: true, text: expect.stringMatching(/^Assignment saved/) } } } });
 		expect((await assignmentsNamed(`${prefix}-freeze`))[0]).toMatchObject({ title: 'Freeze the rower', brief: 'Shoot it fast.' });
+	});
+});
+
+describe('lesson draft form', () => {
+	let lessonId: number;
+	beforeAll(async () => {
+		await createLesson({ moduleId: String(moduleId), title: 'Draft here', slug: `${prefix}-draft`, summary: '', minutes: '5' });
+		lessonId = (await lessonsNamed(`${prefix}-draft`))[0].id;
+	});
+	function editor(name: 'save' | 'publish', form: Record<string, string>) {
+		const event = makeEvent({ path: `/author/lessons/${lessonId}?/${name}`, form, cookies: author, params: { id: String(lessonId) } });
+		return throughHooks(event, (e) => editorActions[name](e as never));
+	}
+
+	test('saving names a missing title, keeps the text typed, and adds no version', async () => {
+		const versions = () => db.select().from(lessonVersions).where(eq(lessonVersions.lessonId, lessonId));
+		const before = (await versions()).length;
+		const outcome = failed(await editor('save', { title: ' ', summary: 'S', body: 'Typed words.', note: 'why' }));
+		expect(outcome?.status).toBe(400);
+		expect(outcome?.data.form.errors).toMatchObject({ title: ['Give it a title.'] });
+		expect(outcome?.data.form.data).toMatchObject({ body: 'Typed words.', note: 'why' });
+		expect(outcome?.data.form.message).toMatchObject({ ok: false, text: 'Nothing was saved: check the fields marked.' });
+		expect(await versions()).toHaveLength(before);
+	});
+
+	test('a saved draft answers with its message and clears the note; publishing text with a problem lists it', async () => {
+		const saved = await editor('save', { title: 'Draft here', summary: '', body: 'Close light at the dock.', note: 'first words' });
+		expect(saved).toMatchObject({ kind: 'value', value: { form: { valid: true, message: { ok: true }, data: { note: '', body: 'Close light at the dock.' } } } });
+		const refused = failed(await editor('publish', { title: 'Draft here', summary: '', body: 'Words.\n\n<NoSuchWidget />\n', note: '' }));
+		expect(refused?.status).toBe(400);
+		expect(refused?.data.form.message).toMatchObject({ ok: false, problems: [expect.any(String)] });
+		expect((await lessonsNamed(`${prefix}-draft`))[0].published).toBe(false);
 	});
 });

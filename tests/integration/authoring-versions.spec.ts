@@ -111,7 +111,10 @@ describe('a lesson written in the browser', () => {
 		const before = (await listVersions(lessonId))!.versions.length;
 		const event = makeEvent({ path: `/author/lessons/${lessonId}?/publish`, cookies, params: { id: String(lessonId) }, form: { title: '', summary: '', body: 'x' } });
 		const outcome = await throughHooks(event, (e) => editorActions.publish(e as never));
-		expect(failureOf((outcome as { value: unknown }).value)).toMatchObject({ status: 400, data: { draft: { ok: false, errors: { title: 'Give it a title.' } } } });
+		expect(failureOf((outcome as { value: unknown }).value)).toMatchObject({
+			status: 400,
+			data: { form: { message: { ok: false }, errors: { title: ['Give it a title.'] }, data: { body: 'x' } } }
+		});
 		expect((await listVersions(lessonId))!.versions.length).toBe(before);
 		const learnerCookies = await signedInCookies(demoAccount('learner').email);
 		const refused = await throughHooks(makeEvent({ path: `/author/lessons/${lessonId}?/publish`, cookies: learnerCookies, params: { id: String(lessonId) }, form: { title: 'x', body: 'y' } }), (e) => editorActions.publish(e as never));

@@ -1,4 +1,4 @@
-// Authoring form schemas: lesson drafts, lesson settings, new lessons and assignments (superforms + zod where converted).
+// Authoring form schemas: lesson drafts, lesson settings, new lessons and assignments (superforms + zod, both sides).
 import { z } from 'zod';
 
 /** Long lessons are fine; a body this size is a paste gone wrong, and it would slow every preview. */
@@ -26,6 +26,8 @@ export const draftSchema = z.object({
 	note: z.string().trim().max(200, 'Keep the note under 200 characters.').default('')
 });
 export type DraftInput = z.infer<typeof draftSchema>;
+/** The draft form's message: the text, whether it worked, and what stopped a publish. */
+export type DraftNotice = { ok: boolean; text: string; problems?: string[] };
 
 export const settingsSchema = z.object({ minutes, freePreview: checkbox });
 export type SettingsInput = z.infer<typeof settingsSchema>;
@@ -52,13 +54,3 @@ export type NewAssignmentInput = z.infer<typeof newAssignmentSchema>;
 
 /** An Assignment form's message: the text, whether it saved, and the spec's problems by path when it did not. */
 export type AssignmentNotice = { ok: boolean; text: string; specErrors?: { path: string; message: string }[] };
-
-/** Field name → first message, for showing next to each field. */
-export function fieldErrors(error: z.ZodError): Record<string, string> {
-	const out: Record<string, string> = {};
-	for (const issue of error.issues) {
-		const key = String(issue.path[0] ?? 'form');
-		out[key] ??= issue.message;
-	}
-	return out;
-}

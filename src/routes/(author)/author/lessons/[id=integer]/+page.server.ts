@@ -9,7 +9,7 @@ import { deleteDraftLesson, openLessonForEditing, saveLessonSettings } from '$li
 import { publishDraft, saveDraft, unpublishLesson } from '$lib/server/authoring/versions';
 import { renderLessonMarkdown } from '$lib/server/lessons/render';
 import { checkSpecText } from '$lib/server/authoring/assignments';
-import { draftSchema, fieldErrors, settingsSchema } from '$lib/forms/authoring';
+import { draftSchema, settingsSchema, type DraftInput, type DraftNotice } from '$lib/forms/authoring';
 import type { Actions, PageServerLoad } from './$types';
 
 const notices: Record<string, string> = {
@@ -23,6 +23,10 @@ export const load: PageServerLoad = async (event) => {
 	const found = await openLessonForEditing(Number(event.params.id));
 	if (!found) error(404, { message: 'There is no such lesson.' });
 	const { lesson, module, course, draft, assignments, unpublishedChanges } = found;
+	const draftForm = await superValidate<DraftInput, DraftNotice>({ title: draft.title, summary: draft.summary, body: draft.body, note: '' }, zod4(draftSchema), {
+		id: 'lesson-draft',
+		errors: false
+	});
 	const settingsForm = await superValidate({ minutes: lesson.minutes, freePreview: lesson.freePreview }, zod4(settingsSchema), { id: 'lesson-settings', errors: false });
 	return {
 		lesson: {
@@ -46,34 +50,34 @@ export const load: PageServerLoad = async (event) => {
 		}),
 		// tells the Quiz widget not to store answers given in the preview
 		lessonPreview: true,
+		draftForm,
 		settingsForm,
 		notice: notices[event.url.searchParams.get('notice') ?? ''] ?? null
 	};
 };
 
-async function readDraft(request: Request) {
-	const form = await request.formData();
-	const field = (name: string) => String(form.get(name) ?? '');
-	return { parsed: draftSchema.safeParse({ title: field('title'), summary: field('summary'), body: field('body'), note: field('note') }) };
-}
+const readDraft = (request: Request) => superValidate<DraftInput, DraftNotice>(request, zod4(draftSchema), { id: 'lesson-draft' });
+const notSaved: DraftNotice = { ok: false, text: 'Nothing was saved: check the fields marked.' };
 
 export const actions = {
 	save: async (event) => {
 		const user = requireRole(event, 'author');
-		const { parsed } = await readDraft(event.request);
-		if (!parsed.success) return fail(400, { draft: { ok: false, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error) } });
-		const saved = await saveDraft(Number(event.params.id), user.id, parsed.data);
-		if (!saved.ok) return fail(400, { draft: { ok: false, message: saved.message } });
-		return { draft: { ok: true, message: saved.message } };
+		const form = await readDraft(event.request);
+		if (!form.valid) return message(form, notSaved, { status: 400 });
+		const saved = await saveDraft(Number(event.params.id), user.id, form.data);
+		if (!saved.ok) return message(form, { ok: false, text: saved.message }, { status: 400 });
+		form.data.note = '';
+		return message(form, { ok: true, text: saved.message });
 	},
 	publish: async (event) => {
 		const user = requireRole(event, 'author');
-		const { parsed } = await readDraft(event.request);
-		if (!parsed.success) return fail(400, { draft: { ok: false, message: 'Nothing was saved: check the fields marked.', errors: fieldErrors(parsed.error) } });
-		const published = await publishDraft(Number(event.params.id), user.id, parsed.data);
-		if (!published.ok) return fail(400, { draft: { ok: false, message: published.message, problems: published.problems ?? [] } });
-		await recordAudit(db, user, { action: 'lesson.publish', subject: parsed.data.title, detail: `lesson ${event.params.id}`, reason: parsed.data.note, href: `/author/lessons/${event.params.id}` });
-		return { draft: { ok: true, message: published.message } };
+		const form = await readDraft(event.request);
+		if (!form.valid) return message(form, notSaved, { status: 400 });
+		const published = await publishDraft(Number(event.params.id), user.id, form.data);
+		if (!published.ok) return message(form, { ok: false, text: published.message, problems: published.problems ?? [] }, { status: 400 });
+		await recordAudit(db, user, { action: 'lesson.publish', subject: form.data.title, detail: `lesson ${event.params.id}`, reason: form.data.note, href: `/author/lessons/${event.params.id}` });
+		form.data.note = '';
+		return message(form, { ok: true, text: published.message });
 	},
 	unpublish: async (event) => {
 		requireRole(event, 'author');
