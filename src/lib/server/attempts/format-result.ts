@@ -1,4 +1,5 @@
 // Measured values and targets of criterion results, and Exif fields, as short strings for the verdict page.
+import type { EvidenceRow } from '$lib/attempts/criterion-view';
 import { formatAperture, formatShutter } from '../../exposure/index';
 import { decodeGrid, describeFlash, type ExifReport } from '../analysis/index';
 import type { CriterionResult } from '../grading/index';
@@ -88,13 +89,6 @@ export function exifRows(exif: ExifReport): ExifRow[] {
 		{ label: 'Taken', value: or(exif.dateTimeOriginal?.replace('T', ' ') ?? null) },
 		{ label: 'Camera', value: or([exif.make, exif.model].filter(Boolean).join(' ') || null) }
 	];
-}
-
-export interface EvidenceRow {
-	/** 'share', 'measured', 'predicted', 'blown': the page styles and pairs rows by it */
-	key: 'share' | 'measured' | 'predicted' | 'blown';
-	label: string;
-	value: string;
 }
 
 /**

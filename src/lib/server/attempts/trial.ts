@@ -1,17 +1,12 @@
 // Trying an Assignment spec on sample frames: read and grade them exactly as an Attempt would be, store nothing.
+import type { CriterionView } from '$lib/attempts/criterion-view';
 import { DEFAULT_SUBJECT_BOX, tryReadFrame, type Box, type Frame } from '../analysis/index';
 import { describeCriterion, grade, parseSpecText, type SpecError } from '../grading/index';
 import { formatMeasured, formatTargetOf } from './format-result';
 import { maxUploadBytes } from './limits';
 
-export interface TrialCriterion {
-	kind: string;
-	verdict: 'pass' | 'fail' | 'unknown';
-	asked: string;
-	measured: string;
-	target: string;
-	message: string;
-}
+/** A criterion of a trial verdict: the verdict page's shape without the pixel evidence. */
+export type TrialCriterion = Omit<CriterionView, 'evidence'>;
 
 export type TrialOutcome =
 	| { ok: true; verdict: 'pass' | 'fail' | 'needs-review'; criteria: TrialCriterion[]; frames: { name: string; problem: string | null; notes: string[] }[] }

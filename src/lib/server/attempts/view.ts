@@ -1,4 +1,5 @@
 // Everything the verdict page and the mentor's review page show about one Attempt, shaped for the browser.
+import type { CriterionView } from '$lib/attempts/criterion-view';
 import { asc, desc, eq } from 'drizzle-orm';
 import { db } from '../db/index';
 import { attemptFrames, attempts, critiques, pins, users, verdictOverrides, type AttemptStatus, type AttemptVerdict } from '../db/schema';
@@ -6,7 +7,7 @@ import { describeCriterion, rubricFor, rubricItem, validateSpec, type RubricItem
 import { canSeeAttempt, type Viewer } from './access';
 import { findAssignmentById } from './assignment';
 import { frameFileHref } from './files';
-import { clippedCells, describeFlashUsed, evidenceRows, exifRows, formatMeasured, formatTargetOf, type ClippedCells, type EvidenceRow, type ExifRow } from './format-result';
+import { clippedCells, describeFlashUsed, evidenceRows, exifRows, formatMeasured, formatTargetOf, type ClippedCells, type ExifRow } from './format-result';
 import type { StoredAnalysis, StoredResult } from './grade-job';
 
 export interface FrameView {
@@ -24,18 +25,6 @@ export interface FrameView {
 	notes: string[];
 	/** why the frame could not be read, when it could not */
 	problem: string | null;
-}
-
-export interface CriterionView {
-	kind: string;
-	verdict: 'pass' | 'fail' | 'unknown';
-	/** the criterion in plain words, as on the Assignment card */
-	asked: string;
-	measured: string;
-	target: string;
-	message: string;
-	/** what the pixels showed: the flash's share, measured beside predicted subject level, blown share */
-	evidence: EvidenceRow[];
 }
 
 export interface PinView {
