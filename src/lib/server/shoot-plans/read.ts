@@ -1,5 +1,5 @@
 // What a learner's Shoot Plan says now, whether it opens an Assignment's uploads, and what waits for a mentor.
-import { and, asc, desc, eq, ne } from 'drizzle-orm';
+import { and, asc, desc, eq, ne, type SQL } from 'drizzle-orm';
 import { DEFAULT_SHOOT_CHECKLIST } from '$lib/forms/shoot-plan';
 import { db } from '../db/index';
 import { assignments, lessons, modules, courses, shootPlans, users, type ShootPlan } from '../db/schema';
@@ -32,30 +32,9 @@ export async function planGateMessage(spec: AssignmentSpec, userId: string, assi
 	return 'This Assignment asks for a Shoot Plan first. File it on the Assignment page; uploads open once a mentor approves it. Nothing was stored.';
 }
 
-/** Plans waiting for a decision, oldest first; a mentor never sees their own. */
-export async function listWaitingPlans(mentorId: string) {
+/** Plans with the names a mentor reads beside them: learner, Assignment, lesson and course. */
+function plansWithNames(where: SQL | undefined) {
 	return db
-		.select({
-			id: shootPlans.id,
-			createdAt: shootPlans.createdAt,
-			learner: users.name,
-			assignment: assignments.title,
-			course: courses.title
-		})
-		.from(shootPlans)
-		.innerJoin(users, eq(shootPlans.userId, users.id))
-		.innerJoin(assignments, eq(shootPlans.assignmentId, assignments.id))
-		.innerJoin(lessons, eq(assignments.lessonId, lessons.id))
-		.innerJoin(modules, eq(lessons.moduleId, modules.id))
-		.innerJoin(courses, eq(modules.courseId, courses.id))
-		.where(and(eq(shootPlans.status, 'waiting'), ne(shootPlans.userId, mentorId)))
-		.orderBy(asc(shootPlans.createdAt), asc(shootPlans.id))
-		.limit(200);
-}
-
-/** One plan with the names a mentor reads beside it. */
-export async function loadPlanForMentor(planId: number) {
-	const [row] = await db
 		.select({
 			plan: shootPlans,
 			learner: { id: users.id, name: users.name, email: users.email },
@@ -69,6 +48,19 @@ export async function loadPlanForMentor(planId: number) {
 		.innerJoin(lessons, eq(assignments.lessonId, lessons.id))
 		.innerJoin(modules, eq(lessons.moduleId, modules.id))
 		.innerJoin(courses, eq(modules.courseId, courses.id))
-		.where(eq(shootPlans.id, planId));
+		.where(where);
+}
+
+/** Plans waiting for a decision, oldest first; a mentor never sees their own. */
+export async function listWaitingPlans(mentorId: string) {
+	const rows = await plansWithNames(and(eq(shootPlans.status, 'waiting'), ne(shootPlans.userId, mentorId)))
+		.orderBy(asc(shootPlans.createdAt), asc(shootPlans.id))
+		.limit(200);
+	return rows.map((r) => ({ id: r.plan.id, createdAt: r.plan.createdAt, learner: r.learner.name, assignment: r.assignment.title, course: r.course.title }));
+}
+
+/** One plan with the names a mentor reads beside it. */
+export async function loadPlanForMentor(planId: number) {
+	const [row] = await plansWithNames(eq(shootPlans.id, planId));
 	return row ?? null;
 }
