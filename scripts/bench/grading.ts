@@ -113,3 +113,10 @@ export const gradingBench: Bench = {
 		};
 	}
 };
+
+/** The pair the upload benches send: a reference at 1/500 s and a lit frame at 1/1500 s with the flash fired. */
+export async function makeBenchPair(): Promise<{ reference: Buffer; lit: Buffer }> {
+	const reference = await makeBenchJpeg([150, 150, 150], [118, 118, 118], '1/500', '16');
+	const lit = await makeBenchJpeg([70, 80, 120], [118, 118, 118], '1/1500', '25');
+	return { reference, lit };
+}

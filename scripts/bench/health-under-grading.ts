@@ -8,7 +8,7 @@ import { once } from 'node:events';
 import { randomUUID } from 'node:crypto';
 import { eq, inArray, sql } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db/index';
-import { attempts, enrolments, users } from '../../src/lib/server/db/schema';
+import { attempts } from '../../src/lib/server/db/schema';
 import { findAssignment } from '../../src/lib/server/attempts/assignment';
 import { attemptFolder } from '../../src/lib/server/attempts/keys';
 import { closeQueue } from '../../src/lib/server/attempts/queue';
@@ -17,7 +17,8 @@ import { readUploadForm } from '../../src/lib/server/attempts/upload-form';
 import { startGradingWorker } from '../../src/lib/server/attempts/worker';
 import { fileStore } from '../../src/lib/server/storage/index';
 import { checkHealth } from '../../src/lib/server/health';
-import { makeBenchJpeg } from './grading';
+import { makeBenchPair } from './grading';
+import { enrolledBenchLearner } from './fixtures';
 import { ms, type Bench } from './timing';
 
 const ASSIGNMENT = 'off-the-axis';
@@ -83,14 +84,11 @@ export const healthUnderGradingBench: Bench = {
 		if (!address || typeof address === 'string') throw new Error('no port');
 		const url = `http://127.0.0.1:${address.port}/api/health`;
 
-		const userId = `bench-health-${randomUUID().slice(0, 8)}`;
-		await db.insert(users).values({ id: userId, email: `${userId}@bench.example`, name: 'Bench learner (invented)' });
-		await db.insert(enrolments).values({ userId, courseId: assignment.course.id, source: 'admin' });
+		const userId = await enrolledBenchLearner('bench-health', 'Bench learner (invented)', assignment.course.id);
 		const worker = await startGradingWorker();
 		const made: string[] = [];
 		try {
-			const reference = await makeBenchJpeg([150, 150, 150], [118, 118, 118], '1/500', '16');
-			const lit = await makeBenchJpeg([70, 80, 120], [118, 118, 118], '1/1500', '25');
+			const { reference, lit } = await makeBenchPair();
 			const idle = await measure(url, () => new Promise((r) => setTimeout(r, IDLE_MS)));
 			// the uploads are made with the worker off, so the measurement covers the grading alone
 			await worker.stop();

@@ -2,7 +2,7 @@
 import { randomUUID } from 'node:crypto';
 import { eq, sql } from 'drizzle-orm';
 import { db } from '../../src/lib/server/db/index';
-import { attempts, enrolments, users } from '../../src/lib/server/db/schema';
+import { attempts } from '../../src/lib/server/db/schema';
 import { readFrame } from '../../src/lib/server/analysis/index';
 import { grade, validateSpec } from '../../src/lib/server/grading/index';
 import { findAssignment } from '../../src/lib/server/attempts/assignment';
@@ -13,7 +13,8 @@ import { submitAttempt } from '../../src/lib/server/attempts/submit';
 import { readUploadForm } from '../../src/lib/server/attempts/upload-form';
 import { startGradingWorker } from '../../src/lib/server/attempts/worker';
 import { fileStore } from '../../src/lib/server/storage/index';
-import { makeBenchJpeg } from './grading';
+import { makeBenchPair } from './grading';
+import { enrolledBenchLearner } from './fixtures';
 import { median, ms, type Bench } from './timing';
 
 const ASSIGNMENT = 'off-the-axis';
@@ -54,14 +55,11 @@ export const uploadToVerdictBench: Bench = {
 	async run() {
 		const assignment = await findAssignment(ASSIGNMENT);
 		if (!assignment?.spec) throw new Error(`assignment ${ASSIGNMENT} is missing: was the demo seeded?`);
-		const userId = `bench-uploader-${randomUUID().slice(0, 8)}`;
-		await db.insert(users).values({ id: userId, email: `${userId}@bench.example`, name: 'Bench uploader (invented)' });
-		await db.insert(enrolments).values({ userId, courseId: assignment.course.id, source: 'admin' });
+		const userId = await enrolledBenchLearner('bench-uploader', 'Bench uploader (invented)', assignment.course.id);
 		const worker = await startGradingWorker();
 		const made: string[] = [];
 		try {
-			const reference = await makeBenchJpeg([150, 150, 150], [118, 118, 118], '1/500', '16');
-			const lit = await makeBenchJpeg([70, 80, 120], [118, 118, 118], '1/1500', '25');
+			const { reference, lit } = await makeBenchPair();
 			const spec = validateSpec(assignment.spec);
 			if (!spec.ok) throw new Error('spec');
 			const uploadMs: number[] = [];

@@ -1,15 +1,16 @@
 // The author's forms (superforms + zod): a bad form answers 400 with the message beside its field, keeps what was
 // typed and stores nothing; a good one is stored; a second identical submit does not make a second lesson.
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { and, eq, like } from 'drizzle-orm';
+import { eq, like } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { assignments, courses, lessonVersions, lessons, modules } from '$lib/server/db/schema';
+import { assignments, lessonVersions, lessons } from '$lib/server/db/schema';
 import { actions as newLessonActions } from '../../src/routes/(author)/author/lessons/new/+page.server';
 import { actions as editorActions } from '../../src/routes/(author)/author/lessons/[id=integer]/+page.server';
 import { actions as newAssignmentActions } from '../../src/routes/(author)/author/lessons/[id=integer]/assignments/new/+page.server';
 import { actions as assignmentActions } from '../../src/routes/(author)/author/assignments/[id=integer]/+page.server';
 import { demoAccount, signedInCookies } from './support/people';
 import { failureOf, makeEvent, throughHooks, type Outcome, type TestCookies } from './support/request-event';
+import { moduleIdOf } from './support/course';
 
 const COURSE = 'daylight-flash-for-action';
 const prefix = `t-forms-${Date.now().toString(36)}`;
@@ -20,12 +21,7 @@ type FormResult = { form: { valid: boolean; data: Record<string, unknown>; error
 
 beforeAll(async () => {
 	author = await signedInCookies(demoAccount('author').email);
-	const [mod] = await db
-		.select({ id: modules.id })
-		.from(modules)
-		.innerJoin(courses, eq(modules.courseId, courses.id))
-		.where(and(eq(courses.slug, COURSE), eq(modules.slug, 'bringing-your-own-light')));
-	moduleId = mod.id;
+	moduleId = await moduleIdOf(COURSE);
 });
 
 afterAll(async () => {

@@ -1,9 +1,9 @@
 // Lessons written in the browser: drafts as versions, publish (refused with problems), restore, unpublish,
 // a file lesson becoming a database lesson on its first edit, and the seed leaving it alone afterwards.
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { and, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { assignments, lessonVersions, lessons, modules, courses } from '$lib/server/db/schema';
+import { assignments, lessonVersions, lessons } from '$lib/server/db/schema';
 import { getLesson } from '$lib/server/courses';
 import { seedDemo } from '$lib/server/seed';
 import { createLesson, deleteDraftLesson, saveLessonSettings } from '$lib/server/authoring/lessons';
@@ -16,6 +16,7 @@ import { load as lessonLoad, actions as lessonActions } from '../../src/routes/(
 import { actions as editorActions } from '../../src/routes/(author)/author/lessons/[id=integer]/+page.server';
 import { demo, demoAccount, freshLearner, removeFreshPeople, signedInCookies, userIdOf } from './support/people';
 import { failureOf, makeEvent, throughHooks, valueOf } from './support/request-event';
+import { moduleIdOf } from './support/course';
 
 const COURSE = 'daylight-flash-for-action';
 const slug = `t-authoring-${Date.now().toString(36)}`;
@@ -25,12 +26,7 @@ let lessonId: number;
 
 beforeAll(async () => {
 	authorId = await userIdOf(demoAccount('author').email);
-	const [mod] = await db
-		.select({ id: modules.id })
-		.from(modules)
-		.innerJoin(courses, eq(modules.courseId, courses.id))
-		.where(and(eq(courses.slug, COURSE), eq(modules.slug, 'bringing-your-own-light')));
-	moduleId = mod.id;
+	moduleId = await moduleIdOf(COURSE);
 });
 
 afterAll(async () => {
