@@ -28,6 +28,11 @@ export interface TestFrameSpec {
 	/** Neutral levels in stops from 18 % grey, or explicit linear sRGB colours. */
 	subject: { stops: number } | { rgb: LinearRgb };
 	background: { stops: number } | { rgb: LinearRgb };
+	/**
+	 * Stops the background brightens from its left edge to its right, centred on its level (0 = one flat field). A real
+	 * background spans levels, and only that lets the pair tell a tone curve from a changed exposure.
+	 */
+	backgroundRamp?: number;
 	box?: Box;
 	/** undefined writes no Exif at all */
 	exif?: TestExif;
@@ -107,13 +112,15 @@ export function buildExif(exif: TestExif): Exif {
 export function paintPixels(spec: TestFrameSpec): { data: Buffer; width: number; height: number } {
 	const width = spec.width ?? 600;
 	const height = spec.height ?? 400;
-	const bg = encode(levelOf(spec.background));
+	const level = levelOf(spec.background);
+	const ramp = spec.backgroundRamp ?? 0;
+	const columns = Array.from({ length: width }, (_, x) => encode(level.map((v) => v * 2 ** (ramp * ((x + 0.5) / width - 0.5))) as LinearRgb));
 	const fg = encode(levelOf(spec.subject));
 	const { x0, y0, x1, y1 } = toPixelBounds(spec.box ?? DEFAULT_SUBJECT_BOX, width, height);
 	const data = Buffer.alloc(width * height * 3);
 	for (let y = 0; y < height; y++) {
 		for (let x = 0; x < width; x++) {
-			const c = x >= x0 && x < x1 && y >= y0 && y < y1 ? fg : bg;
+			const c = x >= x0 && x < x1 && y >= y0 && y < y1 ? fg : columns[x];
 			const i = (y * width + x) * 3;
 			data[i] = c[0];
 			data[i + 1] = c[1];

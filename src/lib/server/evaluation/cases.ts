@@ -52,7 +52,9 @@ export function makeCases(count: number, seed = 20261202): SceneCase[] {
 			c.lift = 0.15 + 0.9 * rand();
 		} else if (kind < 0.34) {
 			label = 'edited';
-			c.edit = rand() < 0.5 ? -1 : 1;
+			// a stop either way, or 0.7 stop: small enough for a picture style to hide in the plain reading
+			const u = rand();
+			c.edit = (u < 0.5 ? -1 : 1) * (u < 0.25 || u >= 0.75 ? 1 : 0.7);
 		} else if (kind < 0.54) {
 			label = 'gel';
 			c.gel = rand() < 0.7;

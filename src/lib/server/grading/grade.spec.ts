@@ -31,8 +31,9 @@ function blue(stops: number): LinearRgb {
 	return rgb as LinearRgb;
 }
 
+// the background spans 3 stops, as a real one does: a single flat level cannot tell a tone curve from an exposure change
 async function frame(exif: TestExif | undefined, levels: Pick<TestFrameSpec, 'subject' | 'background'>): Promise<Frame> {
-	return readFrame(await makeFrame({ width: 300, height: 200, exif, ...levels }));
+	return readFrame(await makeFrame({ width: 300, height: 200, exif, backgroundRamp: 3, ...levels }));
 }
 
 // Ambient reference: 1/500 s, f/8, ISO 100 (EV100 ≈ 15), subject at mid-grey, sky half a stop brighter

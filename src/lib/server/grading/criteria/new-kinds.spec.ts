@@ -8,8 +8,9 @@ import { targetRatio } from './flash-share';
 
 const FLASH_FIRED = 0x19; // CIPA DC-008: fired, auto mode
 
+// the background spans 3 stops, as a real one does: a single flat level cannot tell a tone curve from an exposure change
 async function frame(exif: TestExif, levels: Pick<TestFrameSpec, 'subject' | 'background'>): Promise<Frame> {
-	return readFrame(await makeFrame({ width: 300, height: 200, exif, ...levels }));
+	return readFrame(await makeFrame({ width: 300, height: 200, exif, backgroundRamp: 3, ...levels }));
 }
 
 describe('sync', () => {

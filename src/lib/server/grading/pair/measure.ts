@@ -9,7 +9,9 @@
 // Tone curves: the background's drop against the settings teaches how the camera's curve stretches a change, and the
 // lift is read through that. The pair cannot tell a curve from an edited frame (a flat picture style can hide a frame
 // darkened by a stop), so the lift read as plain sRGB is kept too and the gap between the two readings is added to
-// the uncertainty (curveDoubt); when the drop is beyond anything a curve does, the plain reading is the estimate.
+// the uncertainty (curveDoubt); when the drop is beyond anything a curve does, the plain reading is the estimate. The
+// background's scene drop is also fitted with the curve (comparametric.ts); when that fit cannot rule out an ambient
+// change half a stop off the settings, the learned curve may be off too, and the lift's uncertainty says so.
 // Cells clipped in the reference cannot be compared: when they may hold more of the subject than was measured, the
 // lift is null with its reason. Blown cells give a lower bound: the least lift that takes one channel to clipping.
 // Limits: the frames must show the same scene from the same place (a tripod or a steady hand: cells are ~2.5 % of
@@ -18,13 +20,16 @@
 import { srgbDecode } from '../../../exposure/index';
 import { CLIP_CODE, cellPlaces, decodeGrid, type Box, type Cells, type PixelReport } from '../../analysis/index';
 import { calibrate, curveCanExplain, type Calibration, type LevelPair } from './calibration';
+import { fitSceneDrop, type DropFit } from './comparametric';
 import { median, quantile, robustSpread } from './stats';
 
 export interface PairMeasure {
 	/** Exif settings difference, stops (+ = lit frame darker); null when Exif cannot tell. */
 	expectedDrop: number | null;
-	/** Median darkening of the background cells from reference to lit, in sRGB-decoded stops. */
+	/** Median darkening of the background cells from reference to lit, in sRGB-decoded stops (green: white balance keeps it). */
 	backgroundDrop: number;
+	/** The background's darkening in scene stops, fitted with the camera's curve (comparametric.ts); null when too few cells. */
+	sceneDrop: DropFit | null;
 	/** Robust spread of the background cells' darkening, stops: large when the frames do not show the same scene. */
 	backgroundSpread: number;
 	backgroundCells: number;
@@ -77,6 +82,10 @@ const UNLEARNED_SLOPE_DOUBT = 0.3;
 // read low, and the subject box is a search area, so a median of every lit cell lies below the subject's own lift.
 // Chosen on the evaluation set (src/lib/server/evaluation), where it removes that bias.
 const LIFT_QUANTILE = 0.65;
+// an ambient change this far from the settings must be ruled out by the background (the fit explaining the cells this
+// many times worse with the drop held there) before the curve learned from it is trusted for the lift; our choice
+const LOOSE_DROP = 0.5;
+const DROP_PINNED = 2;
 // least measuring uncertainty of a lift (JPEG noise, cell mixing), stops. our estimate from the evaluation set
 const BASE_UNCERTAINTY = 0.12;
 
@@ -164,7 +173,15 @@ export function measurePair(
 			reason: `too little of the background can be compared (${Math.round(100 * backgroundUsable)} % of it; ${clipped} % of the reference background is clipped)`
 		};
 	}
-	const drops = luma.pairs.map((p) => p.ref - p.lit);
+	const greenRef: number[] = [];
+	const greenLit: number[] = [];
+	for (const i of background) {
+		if (level(ref, i, 'g') >= MIN_LEVEL && level(lit, i, 'g') >= MIN_LEVEL) {
+			greenRef.push(ref.g[i]);
+			greenLit.push(lit.g[i]);
+		}
+	}
+	const drops = greenRef.length >= MIN_BACKGROUND_CELLS ? greenRef.map((v, k) => Math.log2(v / greenLit[k])) : luma.pairs.map((p) => p.ref - p.lit);
 	const noise = robustSpread(luma.backgroundLifts);
 	const slopeDoubt = luma.calibration.slopeLearned ? 0 : UNLEARNED_SLOPE_DOUBT;
 
@@ -214,7 +231,16 @@ export function measurePair(
 	// the same cells read as plain sRGB: where the background's drop differs from the settings, the pair cannot tell a
 	// camera curve (the learned reading) from an edited frame (this reading), so the lift is only known between them
 	const plain = enough && subject.length ? pick(subject.map((c) => luma.plainLift(c.i))) : learned;
-	const curveDoubt = learned !== null && plain !== null && luma.calibration.slopeLearned && !liftIsLowerBound ? Math.abs(learned - plain) : 0;
+	const sceneDrop = fitSceneDrop(greenRef, greenLit, d);
+	// when the background cannot rule out an ambient change half a stop off the settings (an edited frame under a
+	// flat or contrasty style), the curve learned from it may be off by that much too: the lift with it
+	const dropLoose =
+		d !== null && sceneDrop !== null && Math.min(sceneDrop.misfitAt(d - LOOSE_DROP), sceneDrop.misfitAt(d + LOOSE_DROP)) < DROP_PINNED;
+	const looseDoubt = dropLoose && learned !== null ? (Math.abs(learned) * LOOSE_DROP) / Math.max(Math.abs(d as number), 1) : 0;
+	const curveDoubt =
+		learned !== null && !liftIsLowerBound
+			? Math.max(plain !== null && luma.calibration.slopeLearned ? Math.abs(learned - plain) : 0, looseDoubt)
+			: 0;
 	// a background drop no camera curve explains is an edited (or mis-tagged) frame: read the lift as plain sRGB then
 	const edited = d !== null && luma.calibration.slopeLearned && !curveCanExplain(luma.calibration.medianDrop, d);
 	const lift: number | null = edited && curveDoubt > 0 ? plain : learned;
@@ -241,6 +267,7 @@ export function measurePair(
 		pair: {
 			expectedDrop: d,
 			backgroundDrop: median(drops),
+			sceneDrop,
 			backgroundSpread: robustSpread(drops),
 			backgroundCells: luma.pairs.length,
 			backgroundUsable,
