@@ -123,9 +123,10 @@ describe('admin enrolments by hand', () => {
 		expect(row).toMatchObject({ status: 'active', source: 'admin', paymentId: null });
 		expect(await hasCourseAccess(user, courseId)).toBe(true);
 
-		expect(await act('setStatus', { enrolmentId: String(row.id), status: 'revoked' })).toMatchObject({
+		// each row's form names itself, so its answer lands on that row (with or without JavaScript)
+		expect(await act('setStatus', { __superform_id: `enrolment-${row.id}`, enrolmentId: String(row.id), status: 'revoked' })).toMatchObject({
 			kind: 'value',
-			value: { form: { valid: true, message: { ok: true, text: 'Access revoked.' } } }
+			value: { form: { id: `enrolment-${row.id}`, valid: true, message: { ok: true, text: 'Access revoked.' } } }
 		});
 		expect(await hasCourseAccess(user, courseId)).toBe(false);
 		expect(await act('setStatus', { enrolmentId: String(row.id), status: 'active' })).toMatchObject({
@@ -135,9 +136,9 @@ describe('admin enrolments by hand', () => {
 		expect(await hasCourseAccess(user, courseId)).toBe(true);
 
 		const listed = await load(adminEnrolments, `/admin/enrolments?q=${encodeURIComponent(learner.email)}&status=active`, admin);
-		expect((listed as { value: { enrolments: { id: number; source: string }[] } }).value.enrolments).toEqual([
-			expect.objectContaining({ id: row.id, source: 'admin' })
-		]);
+		const value = (listed as { value: { enrolments: { id: number; source: string }[]; statusForms: Record<number, { id: string }> } }).value;
+		expect(value.enrolments).toEqual([expect.objectContaining({ id: row.id, source: 'admin' })]);
+		expect(value.statusForms[row.id]).toMatchObject({ id: `enrolment-${row.id}`, data: { enrolmentId: row.id } });
 	});
 
 	test('bad input gets a message and changes nothing; non-admins are refused', async () => {
