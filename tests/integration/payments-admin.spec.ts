@@ -123,15 +123,22 @@ describe('admin enrolments by hand', () => {
 		expect(row).toMatchObject({ status: 'active', source: 'admin', paymentId: null });
 		expect(await hasCourseAccess(user, courseId)).toBe(true);
 
-		expect(await act('setStatus', { enrolmentId: String(row.id), status: 'revoked' })).toMatchObject({ kind: 'value', value: { change: { ok: true } } });
+		// each row's form names itself, so its answer lands on that row (with or without JavaScript)
+		expect(await act('setStatus', { __superform_id: `enrolment-${row.id}`, enrolmentId: String(row.id), status: 'revoked' })).toMatchObject({
+			kind: 'value',
+			value: { form: { id: `enrolment-${row.id}`, valid: true, message: { ok: true, text: 'Access revoked.' } } }
+		});
 		expect(await hasCourseAccess(user, courseId)).toBe(false);
-		expect(await act('setStatus', { enrolmentId: String(row.id), status: 'active' })).toMatchObject({ kind: 'value' });
+		expect(await act('setStatus', { enrolmentId: String(row.id), status: 'active' })).toMatchObject({
+			kind: 'value',
+			value: { form: { message: { ok: true, text: 'Access restored.' } } }
+		});
 		expect(await hasCourseAccess(user, courseId)).toBe(true);
 
 		const listed = await load(adminEnrolments, `/admin/enrolments?q=${encodeURIComponent(learner.email)}&status=active`, admin);
-		expect((listed as { value: { enrolments: { id: number; source: string }[] } }).value.enrolments).toEqual([
-			expect.objectContaining({ id: row.id, source: 'admin' })
-		]);
+		const value = (listed as { value: { enrolments: { id: number; source: string }[]; statusForms: Record<number, { id: string }> } }).value;
+		expect(value.enrolments).toEqual([expect.objectContaining({ id: row.id, source: 'admin' })]);
+		expect(value.statusForms[row.id]).toMatchObject({ id: `enrolment-${row.id}`, data: { enrolmentId: row.id } });
 	});
 
 	test('bad input gets a message and changes nothing; non-admins are refused', async () => {
@@ -149,7 +156,13 @@ describe('admin enrolments by hand', () => {
 		const noCourse = await act('grant', { email: payer.email, course: 'no-such-course' });
 		expect(failureOf((noCourse as { value: unknown }).value)).toMatchObject({ status: 400, data: { form: { errors: { course: ['That course does not exist.'] } } } });
 		const badStatus = await act('setStatus', { enrolmentId: '1', status: 'deleted' });
-		expect(failureOf((badStatus as { value: unknown }).value)).toMatchObject({ status: 400 });
+		expect(failureOf((badStatus as { value: unknown }).value)).toMatchObject({ status: 400, data: { form: { errors: { status: ['That change is not valid.'] } } } });
+		const noSuchRow = await act('setStatus', { enrolmentId: '2147483000', status: 'revoked', reason: 'kept' });
+		// an enrolment that is not there: the form's message says so, and what was typed comes back
+		expect(failureOf((noSuchRow as { value: unknown }).value)).toMatchObject({
+			status: 400,
+			data: { form: { message: { ok: false, text: 'That enrolment does not exist.' }, data: { reason: 'kept' } } }
+		});
 		expect(await db.select().from(enrolments).where(eq(enrolments.userId, payer.id))).toEqual([]);
 
 		const asLearner = await act('grant', { email: payer.email, course: slug }, payer.cookies);

@@ -1,4 +1,4 @@
-// The admin's enrolment forms: opening a course to a person by hand (superforms + zod, both sides).
+// The admin's enrolment forms: opening a course to a person by hand, and revoking or restoring one (superforms + zod, both sides).
 import { z } from 'zod';
 
 export const grantSchema = z.object({
@@ -7,3 +7,11 @@ export const grantSchema = z.object({
 	reason: z.string().trim().max(500, 'Keep the reason under 500 characters.').default('')
 });
 export type GrantForm = z.infer<typeof grantSchema>;
+
+/** Revoking or restoring one enrolment; the row's button says which (its `status`). */
+export const enrolmentStatusSchema = z.object({
+	enrolmentId: z.number({ error: 'That change is not valid.' }).int('That change is not valid.').positive('That change is not valid.'),
+	status: z.enum(['active', 'revoked'], 'That change is not valid.'),
+	reason: z.string().trim().max(500, 'Keep the reason under 500 characters.').default('')
+});
+export type EnrolmentStatusForm = z.infer<typeof enrolmentStatusSchema>;

@@ -1,7 +1,4 @@
 // The course's first-visit guide: every Assignment in reading order, the frames it wants and the gear it asks for.
-import { and, asc, eq } from 'drizzle-orm';
-import { db } from './db';
-import { assignments, lessons, modules } from './db/schema';
 import { gearFor, type GearItem } from './grading/gear';
 
 export interface GuideAssignment {
@@ -14,24 +11,29 @@ export interface GuideAssignment {
 	gear: GearItem[];
 }
 
+/** An Assignment as the course page's query reads it: its spec as the stored JSON text. */
+export type GuideRow = Omit<GuideAssignment, 'frames' | 'gear'> & { specText: string };
+
+// Frames and gear depend on the spec's text alone: each distinct text is read once (bounded), not on every visit.
+const MAX_KEPT = 256;
+const kept = new Map<string, Pick<GuideAssignment, 'frames' | 'gear'>>();
+
+function framesAndGear(specText: string): Pick<GuideAssignment, 'frames' | 'gear'> {
+	const hit = kept.get(specText);
+	if (hit) return hit;
+	const spec: unknown = JSON.parse(specText);
+	const frames = (spec as { frames?: unknown } | null)?.frames;
+	const read = { frames: Array.isArray(frames) ? frames.map(String) : [], gear: gearFor(spec) };
+	kept.set(specText, read);
+	if (kept.size > MAX_KEPT) kept.delete(kept.keys().next().value!);
+	return read;
+}
+
 /** Titles, frame names and gear only: an Assignment's brief stays behind enrolment with its lesson. */
-export async function courseGuide(courseId: number): Promise<GuideAssignment[]> {
-	const rows = await db
-		.select({
-			slug: assignments.slug,
-			title: assignments.title,
-			spec: assignments.spec,
-			lessonSlug: lessons.slug,
-			lessonTitle: lessons.title,
-			moduleTitle: modules.title
-		})
-		.from(assignments)
-		.innerJoin(lessons, eq(assignments.lessonId, lessons.id))
-		.innerJoin(modules, eq(lessons.moduleId, modules.id))
-		.where(and(eq(modules.courseId, courseId), eq(lessons.published, true)))
-		.orderBy(asc(modules.position), asc(lessons.position), asc(assignments.position));
-	return rows.map(({ spec, ...r }) => {
-		const frames = (spec as { frames?: unknown }).frames;
-		return { ...r, frames: Array.isArray(frames) ? frames.map(String) : [], gear: gearFor(spec) };
+export function courseGuide(rows: readonly GuideRow[]): GuideAssignment[] {
+	// copies: the page's data must not share arrays with what is kept
+	return rows.map(({ specText, ...r }) => {
+		const { frames, gear } = framesAndGear(specText);
+		return { ...r, frames: [...frames], gear: gear.map((g) => ({ ...g })) };
 	});
 }

@@ -1,16 +1,17 @@
-// The lesson page in one call: the access rule, then the kept render, the viewer's progress, the Assignment cards
-// and the neighbours, read side by side.
+// The lesson page in one call: the lesson, its Assignments and neighbours in one query (page-query.ts), the access
+// rule, then the kept render, the viewer's progress and the Assignment cards, read side by side.
 import { error } from '@sveltejs/kit';
-import { getLesson, lessonAssignments } from '../courses';
+import { getLesson } from '../courses';
 import { lessonAssignmentCards } from '../attempts/history';
-import { lessonNeighbours } from '../lesson-neighbours';
 import { setLessonComplete, visitLesson } from '../progress';
 import type { AuthUser } from '../auth';
 import type { LessonPageData } from '../../lessons/page-data';
 import { actionAccess, decideAccess, lessonPageAccess, type Guarded } from './access';
+import { readLessonPageRows } from './page-query';
 import { renderPublishedLesson } from './published';
 
-type Found = NonNullable<Awaited<ReturnType<typeof getLesson>>>;
+/** A found lesson, as far as the access rule reads it. */
+type Found = { course: { id: number; slug: string }; lesson: { freePreview: boolean } };
 
 /** What the access rule needs of a found lesson. */
 export function guardOf(found: Found | null): Guarded {
@@ -19,18 +20,15 @@ export function guardOf(found: Found | null): Guarded {
 
 /** The page's data; a visitor or learner without access is redirected (sign-in, enrol offer), a missing lesson is a 404. */
 export async function loadLessonPage(user: AuthUser | null, url: URL, courseSlug: string, lessonSlug: string): Promise<LessonPageData> {
-	const found = await getLesson(courseSlug, lessonSlug);
-	// paid access, checked before anything of the lesson is read: others get the course page's enrol offer
+	const found = await readLessonPageRows(courseSlug, lessonSlug);
+	// paid access, checked before the lesson's text is read: others get the course page's enrol offer
 	lessonPageAccess(await decideAccess(user, guardOf(found)), { url, courseSlug, lessonSlug });
-	const { lesson, module, course } = found!;
+	const { lesson, module, course, neighbours } = found!;
 	// every lesson is rendered on the server, files too: a client-side import would put paid text in public bundles
-	const [rendered, visit, assignments, neighbours] = await Promise.all([
+	const [rendered, visit, assignments] = await Promise.all([
 		renderPublishedLesson(lesson),
 		user ? visitLesson(user.id, lesson.id) : null,
-		lessonAssignments(lesson.id).then((list) =>
-			lessonAssignmentCards(user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, list)
-		),
-		lessonNeighbours(course.id, lesson.id)
+		lessonAssignmentCards(user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found!.assignments)
 	]);
 	if (!rendered) error(404, { message: 'This lesson has no text yet.' });
 	return {

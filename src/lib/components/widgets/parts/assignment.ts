@@ -55,9 +55,12 @@ export function verdictBadge(verdict: string): { label: string; tone: 'pass' | '
 	}
 }
 
+// made once: making a date format costs far more than using one
+const verdictDay = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
 /** A verdict's date as '3 May 2026' (UTC, so server and browser agree); unreadable dates are shown as given. */
 export function showVerdictDate(at: string): string {
 	const date = new Date(at);
 	if (Number.isNaN(date.getTime())) return at;
-	return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(date);
+	return verdictDay.format(date);
 }

@@ -4,16 +4,23 @@ import { message, setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { requireRole } from '$lib/server/guards';
 import { grantEnrolment, listEnrolments, readEnrolmentsQuery, setEnrolmentStatus } from '$lib/server/payments/admin-enrolments';
-import { grantSchema } from '$lib/forms/enrolments';
+import { enrolmentStatusSchema, grantSchema, type EnrolmentStatusForm } from '$lib/forms/enrolments';
+import type { Notice } from '$lib/forms/review';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'admin');
 	const query = readEnrolmentsQuery(event.url.searchParams);
 	const listed = await listEnrolments(query);
-	const grantForm = await superValidate({ course: listed.courses[0]?.slug ?? '' }, zod4(grantSchema), { id: 'grant', errors: false });
-	return { query, ...listed, grantForm };
+	const [grantForm, statusForms] = await Promise.all([
+		superValidate({ course: listed.courses[0]?.slug ?? '' }, zod4(grantSchema), { id: 'grant', errors: false }),
+		Promise.all(listed.enrolments.map((e) => superValidate<EnrolmentStatusForm, Notice>({ enrolmentId: e.id }, zod4(enrolmentStatusSchema), { id: statusFormId(e.id), errors: false })))
+	]);
+	return { query, ...listed, grantForm, statusForms: Object.fromEntries(listed.enrolments.map((e, i) => [e.id, statusForms[i]])) };
 };
+
+/** Each row has its own revoke/restore form, told apart by the enrolment's id. */
+const statusFormId = (enrolmentId: number) => `enrolment-${enrolmentId}`;
 
 export const actions = {
 	grant: async (event) => {
@@ -24,16 +31,14 @@ export const actions = {
 		if (!result.ok) return setError(form, result.field, result.message);
 		return message(form, result.message);
 	},
+	/** Revoke or restore, as the row's button says (its name is `status`). */
 	setStatus: async (event) => {
 		const admin = requireRole(event, 'admin');
-		const data = await event.request.formData();
-		const id = Number(data.get('enrolmentId'));
-		const status = data.get('status');
-		if (!Number.isSafeInteger(id) || id < 1 || (status !== 'active' && status !== 'revoked')) {
-			return fail(400, { change: { id, ok: false, text: 'That change is not valid.' } });
-		}
-		const result = await setEnrolmentStatus(admin, id, status, String(data.get('reason') ?? '').trim().slice(0, 500));
-		if (!result.ok) return fail(400, { change: { id, ok: false, text: result.message } });
-		return { change: { id, ok: true, text: result.message } };
+		const form = await superValidate<EnrolmentStatusForm, Notice>(event.request, zod4(enrolmentStatusSchema));
+		if (!form.valid) return fail(400, { form });
+		const { enrolmentId, status, reason } = form.data;
+		const result = await setEnrolmentStatus(admin, enrolmentId, status, reason);
+		if (!result.ok) return message(form, { text: result.message, ok: false }, { status: 400 });
+		return message(form, { text: result.message, ok: true });
 	}
 } satisfies Actions;

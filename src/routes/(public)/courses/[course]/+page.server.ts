@@ -1,21 +1,20 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { getCourseOutline } from '$lib/server/courses';
+import { readCoursePage } from '$lib/server/courses';
 import { readEnrolmentState, readCourseNotice } from '$lib/server/payments/course-page';
 import { startCheckout } from '$lib/server/payments/checkout';
 import { requireUser } from '$lib/server/guards';
 import { courseProgress } from '$lib/server/progress';
 import { instructorForCourse } from '$lib/server/instructors';
-import { courseGuide } from '$lib/server/course-guide';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals, url }) => {
-	const outline = await getCourseOutline(params.course);
-	if (!outline) error(404, { message: 'There is no such course.' });
-	const { course, modules } = outline;
-	const [enrolment, progress, guide] = await Promise.all([
+	// the course, its outline and its guide in one query
+	const found = await readCoursePage(params.course);
+	if (!found) error(404, { message: 'There is no such course.' });
+	const { course, modules, guide } = found;
+	const [enrolment, progress] = await Promise.all([
 		readEnrolmentState(locals.user, course.id),
-		locals.user ? courseProgress(locals.user, course.id) : null,
-		courseGuide(course.id)
+		locals.user ? courseProgress(locals.user, course.id) : null
 	]);
 	return {
 		course: {
