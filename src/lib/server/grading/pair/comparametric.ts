@@ -26,6 +26,7 @@ export interface DropFit {
 // a residual beyond this (encoded units, about 13 codes) counts as this much: a moved or spilled cell
 const OUTLIER = 0.05;
 const MIN_CELLS = 12;
+const MAX_CELLS = 320;
 // a cell mean's noise that no fit can remove (JPEG rounding, texture), encoded units: about one code
 const NOISE_FLOOR = 0.004;
 // the style's parameter grid: excess slope in the mid-tones and near the ends (against sRGB)
@@ -158,10 +159,14 @@ const REFINED = 24;
  * Exif drop in stops when known. null when too few cells.
  */
 export function fitSceneDrop(ref: readonly number[], lit: readonly number[], settings: number | null): DropFit | null {
-	const n = Math.min(ref.length, lit.length);
-	if (n < MIN_CELLS) return null;
-	const refCodes = Float64Array.from({ length: n }, (_, i) => srgbEncode(ref[i]));
-	const litCodes = Float64Array.from({ length: n }, (_, i) => srgbEncode(lit[i]));
+	const all = Math.min(ref.length, lit.length);
+	if (all < MIN_CELLS) return null;
+	// an even sample across the reference's levels: more cells add time, not information about the curve
+	const order = Array.from({ length: all }, (_, i) => i).sort((a, b) => ref[a] - ref[b]);
+	const picked = all <= MAX_CELLS ? order : Array.from({ length: MAX_CELLS }, (_, k) => order[Math.floor((k * all) / MAX_CELLS)]);
+	const n = picked.length;
+	const refCodes = Float64Array.from(picked, (i) => srgbEncode(ref[i]));
+	const litCodes = Float64Array.from(picked, (i) => srgbEncode(lit[i]));
 	const centre = settings ?? 1.5;
 	const scanned = allStyles().map((style) => {
 		const sceneLog = refCodes.map((v) => lookup(LOG_OF_CODE, lookup(style.inverse, v)));
@@ -188,6 +193,6 @@ export function fitSceneDrop(ref: readonly number[], lit: readonly number[], set
 		drop: best.drop,
 		midSlope: 1 + best.style.mid,
 		endSlope: 1 + best.style.end,
-		cells: n
+		cells: all
 	};
 }
