@@ -209,12 +209,16 @@ export function measurePair(
 	const subject = enough ? lit_ : [];
 	// subject cells clipped in the reference cannot be compared: when they outnumber the lit cells found, the subject
 	// may be there unmeasured, so neither "no flash" nor the few cells found can stand for it
-	// (a clipped sky in a loose box is told apart by its lit level: at most the clipping level's prediction, no flash)
+	// (a clipped sky in a loose box is told apart by its lit level: no more than its reference level predicts, no flash)
 	const clippedInReference = boxCells.filter((i) => {
 		if (ref.clipped[i] <= MAX_CLIPPED || blownCells.includes(i)) return false;
 		if (lit.clipped[i] > MAX_CLIPPED) return true;
 		const b = level(lit, i, 'y');
-		return !(b >= MIN_LEVEL) || luma.calibration.sceneStops(luma.calibration.predictLit(CLIP_LEVEL), b) >= threshold;
+		// clipping only lowers a cell's measured level, so the lift against it is the most the flash can have added;
+		// a cell with no level left is at least at the clipping level
+		const a = level(ref, i, 'y');
+		const atMost = Number.isFinite(a) ? Math.min(a, CLIP_LEVEL) : CLIP_LEVEL;
+		return !(b >= MIN_LEVEL) || luma.calibration.sceneStops(luma.calibration.predictLit(atMost), b) >= threshold;
 	}).length;
 	const liftUnknownReason =
 		clippedInReference >= Math.max(2, subject.length + blownLifts.length)
