@@ -60,3 +60,27 @@ describe('evaluation subset', () => {
 		expect(hot.criteria.find((c) => c.kind === 'flash-share')!.verdict).not.toBe('pass');
 	});
 });
+
+describe('held-out pairs (seed 777, which no threshold was chosen on)', () => {
+	it('hands a light subject clipped in one channel of the reference to a mentor rather than failing its weak flash', async () => {
+		// a CTO-balanced reference in daylight clips the light jersey's blue channel; the flash's true lift is 0.56 stop
+		const c = makeCases(19, 777).find((x) => x.id.startsWith('018'))!;
+		const outcome = await runCase(c);
+		expect(outcome.truth.lift).toBeGreaterThan(0.5);
+		const evidence = outcome.criteria.find((r) => r.kind === 'flash-evidence')!;
+		expect(evidence.verdict).toBe('unknown');
+		expect(evidence.message).toMatch(/clipped to white in the reference frame/);
+	});
+
+});
+
+describe('an edited frame a picture style hides', () => {
+	it('does not pass the background of a frame edited 0.7 stop darker under a flat style, nor the balance read through it', async () => {
+		// the plain sRGB reading is only 0.16 stop off the settings: the flat style squeezes the edit almost away
+		const c = makeCases(48).find((x) => x.id.startsWith('047'))!;
+		expect(c.edit).toBeCloseTo(0.7, 5);
+		const outcome = await runCase(c);
+		expect(outcome.criteria.find((r) => r.kind === 'background-drop')!.verdict).not.toBe('pass');
+		expect(outcome.criteria.find((r) => r.kind === 'flash-share')!.verdict).not.toBe('pass');
+	});
+});
