@@ -52,6 +52,20 @@ parentPort.on('message', ({ id, bytes, maxPixels }) => {
 let worker: Worker | null = null;
 let nextId = 1;
 const pending = new Map<number, (answer: WorkerAnswer | Error) => void>();
+// WebAssembly memory only grows: a thread idle this long is ended, which gives back what its largest frame took
+const IDLE_MS = 30_000;
+let idleTimer: NodeJS.Timeout | null = null;
+
+function whenIdle(): void {
+	if (pending.size > 0 || !worker) return;
+	worker.unref();
+	idleTimer = setTimeout(() => {
+		const idle = worker;
+		worker = null;
+		void idle?.terminate();
+	}, IDLE_MS);
+	idleTimer.unref();
+}
 
 function theWorker(): Worker {
 	if (worker) return worker;
@@ -76,14 +90,14 @@ function theWorker(): Worker {
 /** Decodes the primary image; rejects only with FrameReadError (damaged, too many pixels, or a variant libheif cannot decode). */
 export async function decodeHeif(bytes: Uint8Array, maxPixels: number): Promise<HeifPixels> {
 	const id = nextId++;
+	if (idleTimer) clearTimeout(idleTimer);
+	idleTimer = null;
 	const answer = await new Promise<WorkerAnswer | Error>((resolve) => {
 		pending.set(id, resolve);
 		const w = theWorker();
 		w.ref(); // kept alive while a decode is pending
 		w.postMessage({ id, bytes: new Uint8Array(bytes), maxPixels });
-	}).finally(() => {
-		if (pending.size === 0) worker?.unref();
-	});
+	}).finally(whenIdle);
 	if (answer instanceof Error) throw malformed(answer, 'HEIC');
 	if (answer.ok) return { data: answer.data, width: answer.width, height: answer.height, channels: 4 };
 	if (answer.reason === 'too-many-pixels') throw tooManyPixels(answer.width ?? null, answer.height ?? null, maxPixels);

@@ -217,6 +217,18 @@ describe('readFrame on HEIC and raw files', () => {
 		expect(error.message).toMatch(/^This raw \(CR3\) file could not be decoded here/);
 	});
 
+	it('says so when the raw decoder is not installed, instead of failing', async () => {
+		const path = process.env.PATH;
+		process.env.PATH = '/nonexistent';
+		try {
+			const error = await rejection(readFrame(makeDng({ subject: { stops: 0 }, background: { stops: 0 } })));
+			expect(error.code).toBe('not-decodable');
+			expect(error.message).toMatch(/^Raw \(DNG\) files cannot be decoded on this server just now/);
+		} finally {
+			process.env.PATH = path;
+		}
+	});
+
 	it('refuses a HEIC container with no image in it', async () => {
 		const heic = Buffer.concat([Buffer.from([0, 0, 0, 24]), Buffer.from('ftypheic\0\0\0\0mif1heic', 'latin1'), Buffer.alloc(200, 7)]);
 		const error = await rejection(readFrame(heic));
