@@ -193,6 +193,17 @@ describe('readFrame on HEIC and raw files', () => {
 		expect(frame.notes.join(' ')).toMatch(/linear light/);
 	});
 
+	it('decodes Bayer raw data as cameras record it: black level taken off, camera white balance applied, colours kept', async () => {
+		// a warm background in linear sRGB, behind an RGGB filter whose red and blue photosites see 0.5 and 0.7 of green
+		const dng = makeDng({ width: 1600, height: 1200, cfa: true, subject: { stops: 1 }, background: { rgb: [0.3, 0.18, 0.1] }, exif: REFERENCE_EXIF });
+		const frame = await readFrame(dng);
+		expect(frame.pixels!.subject.stops).toBeCloseTo(1, 2);
+		const [r, g, b] = frame.pixels!.background.rgb;
+		expect(r).toBeCloseTo(0.3, 2);
+		expect(g).toBeCloseTo(0.18, 2);
+		expect(b).toBeCloseTo(0.1, 2);
+	});
+
 	it('counts raw highlights at the white level as clipped and leaves them out of the level', async () => {
 		// 3 stops over mid-grey is 8 × 0.128 ≈ 1.03 of white: clipped in the raw data
 		const frame = await readFrame(makeDng({ subject: { stops: 3 }, background: { stops: -1 } }));

@@ -106,7 +106,20 @@ const XYZ_TO_SRGB = [3.2406, -1.5372, -0.4986, -0.9689, 1.8758, 0.0415, 0.0557, 
 export interface TestDngSpec extends TestFrameSpec {
 	/** true writes a damaged file: the image data stops halfway */
 	truncate?: boolean;
+	/**
+	 * true writes what most cameras record: one sample a photosite behind an RGGB Bayer filter (PhotometricInterpretation
+	 * CFA, 32803), 14-bit data above a black level of 512, and a sensor less sensitive to red and blue than to green
+	 * (AsShotNeutral 0.5 1 0.7), which the decoder's white balance must undo.
+	 */
+	cfa?: boolean;
 }
+
+// the CFA variant's sensor: black and white levels of a 14-bit camera, and its response to neutral light per channel
+const CFA_BLACK = 512;
+const CFA_WHITE = 16383;
+const CFA_NEUTRAL = [0.5, 1, 0.7];
+// DNG 1.4 CFAPattern codes: 0 red, 1 green, 2 blue; RGGB
+const RGGB = [0, 1, 1, 2];
 
 /**
  * A DNG whose raw data is linear RGB (PhotometricInterpretation LinearRaw, 34892), 16 bits a sample, uncompressed, white
@@ -121,10 +134,19 @@ export function makeDng(spec: TestDngSpec): Buffer {
 	const bg = levelOf(spec.background).map(code);
 	const fg = levelOf(spec.subject).map(code);
 	const { x0, y0, x1, y1 } = toPixelBounds(spec.box ?? DEFAULT_SUBJECT_BOX, width, height);
-	const pixels = Buffer.alloc(width * height * 6);
+	const inBox = (x: number, y: number) => x >= x0 && x < x1 && y >= y0 && y < y1;
+	const samples = spec.cfa ? 1 : 3;
+	const pixels = Buffer.alloc(width * height * samples * 2);
 	for (let y = 0; y < height; y++) {
 		for (let x = 0; x < width; x++) {
-			const c = x >= x0 && x < x1 && y >= y0 && y < y1 ? fg : bg;
+			if (spec.cfa) {
+				const channel = RGGB[(y % 2) * 2 + (x % 2)];
+				const level = levelOf(inBox(x, y) ? spec.subject : spec.background)[channel];
+				const share = Math.min(1, level * scale * CFA_NEUTRAL[channel]);
+				pixels.writeUInt16LE(CFA_BLACK + Math.round(share * (CFA_WHITE - CFA_BLACK)), (y * width + x) * 2);
+				continue;
+			}
+			const c = inBox(x, y) ? fg : bg;
 			const i = (y * width + x) * 6;
 			pixels.writeUInt16LE(c[0], i);
 			pixels.writeUInt16LE(c[1], i + 2);
@@ -133,6 +155,7 @@ export function makeDng(spec: TestDngSpec): Buffer {
 	}
 
 	const exif = spec.exif ? exifEntries(spec.exif) : [];
+	const neutral = spec.cfa ? CFA_NEUTRAL : [1, 1, 1];
 	const make = spec.exif?.make ?? 'Stopwise Test';
 	const model = spec.exif?.model ?? 'Linear One';
 	// DNG 1.4 chapter 4: the raw IFD's tags; offsets are filled in below once the layout is known
@@ -140,26 +163,35 @@ export function makeDng(spec: TestDngSpec): Buffer {
 		{ tag: 254, type: LONG, values: [0] }, // NewSubFileType: main image
 		{ tag: 256, type: LONG, values: [width] }, // ImageWidth
 		{ tag: 257, type: LONG, values: [height] }, // ImageLength
-		{ tag: 258, type: SHORT, values: [16, 16, 16] }, // BitsPerSample
+		{ tag: 258, type: SHORT, values: Array(samples).fill(16) }, // BitsPerSample
 		{ tag: 259, type: SHORT, values: [1] }, // Compression: none
-		{ tag: 262, type: SHORT, values: [34892] }, // PhotometricInterpretation: LinearRaw
+		{ tag: 262, type: SHORT, values: [spec.cfa ? 32803 : 34892] }, // PhotometricInterpretation: CFA or LinearRaw
 		{ tag: 271, type: ASCII, values: make }, // Make
 		{ tag: 272, type: ASCII, values: model }, // Model
 		{ tag: 273, type: LONG, values: [0] }, // StripOffsets (set below)
 		{ tag: 274, type: SHORT, values: [1] }, // Orientation
-		{ tag: 277, type: SHORT, values: [3] }, // SamplesPerPixel
+		{ tag: 277, type: SHORT, values: [samples] }, // SamplesPerPixel
 		{ tag: 278, type: LONG, values: [height] }, // RowsPerStrip: one strip
 		{ tag: 279, type: LONG, values: [pixels.length] }, // StripByteCounts
 		{ tag: 284, type: SHORT, values: [1] }, // PlanarConfiguration: chunky
 		{ tag: 50706, type: BYTE, values: [1, 4, 0, 0] }, // DNGVersion 1.4.0.0
 		{ tag: 50707, type: BYTE, values: [1, 1, 0, 0] }, // DNGBackwardVersion 1.1.0.0
 		{ tag: 50708, type: ASCII, values: `${make} ${model}` }, // UniqueCameraModel
-		{ tag: 50714, type: LONG, values: [0, 0, 0] }, // BlackLevel
-		{ tag: 50717, type: LONG, values: [65535, 65535, 65535] }, // WhiteLevel
-		{ tag: 50721, type: SRATIONAL, values: XYZ_TO_SRGB.flatMap((v) => [Math.round(v * 10000), 10000]) }, // ColorMatrix1
-		{ tag: 50728, type: RATIONAL, values: [1, 1, 1, 1, 1, 1] }, // AsShotNeutral
+		{ tag: 50714, type: LONG, values: spec.cfa ? [CFA_BLACK] : [0, 0, 0] }, // BlackLevel
+		{ tag: 50717, type: LONG, values: spec.cfa ? [CFA_WHITE] : [65535, 65535, 65535] }, // WhiteLevel
+		// ColorMatrix1, XYZ to the camera's own RGB: linear sRGB scaled per channel by the sensor's response to neutral
+		{ tag: 50721, type: SRATIONAL, values: XYZ_TO_SRGB.flatMap((v, i) => [Math.round(v * neutral[Math.floor(i / 3)] * 10000), 10000]) },
+		{ tag: 50728, type: RATIONAL, values: neutral.flatMap((v) => rational(v)) }, // AsShotNeutral
 		{ tag: 50778, type: SHORT, values: [21] } // CalibrationIlluminant1: D65
 	];
+	if (spec.cfa) {
+		ifd0.push(
+			{ tag: 33421, type: SHORT, values: [2, 2] }, // CFARepeatPatternDim
+			{ tag: 33422, type: BYTE, values: RGGB }, // CFAPattern
+			{ tag: 50710, type: BYTE, values: [0, 1, 2] }, // CFAPlaneColor
+			{ tag: 50711, type: SHORT, values: [1] } // CFALayout: rectangular
+		);
+	}
 	if (exif.length) ifd0.push({ tag: 34665, type: LONG, values: [0] }); // ExifIFD pointer (set below)
 
 	const ifd0At = 8;

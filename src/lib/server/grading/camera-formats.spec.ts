@@ -32,7 +32,8 @@ async function pair(make: Maker): Promise<{ reference: Frame; lit: Frame }> {
 
 const FORMATS: [string, Maker, string][] = [
 	['HEIC (made by heif-enc, decoded by libheif in WebAssembly)', makeHeic, 'HEIC'],
-	['DNG (written by hand, decoded by LibRaw to linear data)', async (spec) => makeDng(spec), 'raw (DNG)']
+	['DNG (written by hand, decoded by LibRaw to linear data)', async (spec) => makeDng(spec), 'raw (DNG)'],
+	['DNG with Bayer data (14-bit, black level 512, the camera white balance undone by LibRaw)', async (spec) => makeDng({ ...spec, cfa: true }), 'raw (DNG)']
 ];
 
 describe.each(FORMATS)('a %s pair', (_, make, label) => {
