@@ -30,7 +30,7 @@ export function formatMegabytes(bytes: number): string {
 export function checkChosenFile(file: ChosenFile, maxBytes: number): string | null {
 	if (file.size === 0) return 'This file is empty. Please choose the photo again.';
 	if (!MEASURABLE_TYPES.has(file.type) && !MEASURABLE.test(file.name)) {
-		return 'This is not a photo we can read. Upload a JPEG, HEIC or raw file (DNG and the common camera raw formats) straight from the camera or phone, or a PNG, WebP, TIFF or AVIF from your editor.';
+		return 'This is not a photo we can read. Upload a JPEG, HEIC or raw file (DNG and the raw formats of common cameras) straight from the camera or phone, or a PNG, WebP, TIFF or AVIF from your editor.';
 	}
 	if (file.size > maxBytes) {
 		return `This file is ${formatMegabytes(file.size)}; the limit is ${formatMegabytes(maxBytes)}. Export a JPEG at full size and normal quality, which stays well under it.`;

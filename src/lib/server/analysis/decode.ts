@@ -51,7 +51,7 @@ export function checkInput(bytes: Uint8Array, limits: InputLimits): FileType {
 	if (type.kind === 'unknown') {
 		throw new FrameReadError(
 			'unsupported-type',
-			'This file is not a photo we can read. Upload a JPEG, HEIC or raw file (DNG and the common camera raw formats) straight from the camera or phone, or a PNG, WebP, TIFF or AVIF from your editor.'
+			'This file is not a photo we can read. Upload a JPEG, HEIC or raw file (DNG and the raw formats of common cameras) straight from the camera or phone, or a PNG, WebP, TIFF or AVIF from your editor.'
 		);
 	}
 	if (type.kind === 'gif') {

@@ -1,4 +1,4 @@
-// Decodes camera raw files to linear light with LibRaw's command-line tools (Debian package libraw-bin), in a child process.
+// Decodes raw files to linear light with LibRaw's command-line tools (Debian package libraw-bin), in a child process.
 import { execFile } from 'node:child_process';
 import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
