@@ -179,6 +179,16 @@ describe('readFrame on HEIC and raw files', () => {
 		expect(frame.pixels!.background.stops).toBeCloseTo(-1, 1);
 	});
 
+	it('converts a phone\'s Display P3 HEIC to sRGB by its ICC profile before measuring colour', async () => {
+		// a saturated blue in linear sRGB; in Display P3 (SMPTE EG 432-1 primaries, D65, the sRGB curve) its blue is about
+		// 0.42, so reading the P3 values as sRGB would be 0.03 off; converted by the profile it reads back within 0.01
+		const heic = await makeHeic({ width: 640, height: 480, subject: { stops: 0 }, background: { rgb: [0.05, 0.1, 0.45] }, exif: REFERENCE_EXIF, profile: 'p3' });
+		const [r, g, b] = (await readFrame(heic)).pixels!.background.rgb;
+		expect(Math.abs(r - 0.05)).toBeLessThan(0.01);
+		expect(Math.abs(g - 0.1)).toBeLessThan(0.01);
+		expect(Math.abs(b - 0.45)).toBeLessThan(0.01);
+	});
+
 	it('measures a DNG in linear light: levels as the scene was made, with a note saying so', async () => {
 		// mid-grey stored at 10/78 of white, where ISO 12232 saturation-based speed puts a metered 18 % grey (raw-levels.ts)
 		const dng = makeDng({ width: 1600, height: 1200, subject: { stops: 1.5 }, background: { stops: -2.5 }, exif: { ...REFERENCE_EXIF, flash: 0x19 } });
