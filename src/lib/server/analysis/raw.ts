@@ -27,6 +27,24 @@ export interface RawInfo {
 }
 
 const DECODE_TIME_LIMIT_MS = 60_000;
+// decodes at once in this process: each holds its file, a decoder process and its 16-bit output (about 100 MB for 24 MP);
+// more wait their turn, so a burst of raw uploads cannot take the machine's memory
+const DECODES_AT_ONCE = 2;
+let running = 0;
+const waiting: (() => void)[] = [];
+
+export async function inTurn<T>(work: () => Promise<T>): Promise<T> {
+	// a finished decode hands its place straight to the next in line, so no newcomer can slip in between
+	if (running >= DECODES_AT_ONCE) await new Promise<void>((resolve) => waiting.push(resolve));
+	else running++;
+	try {
+		return await work();
+	} finally {
+		const next = waiting.shift();
+		if (next) next();
+		else running--;
+	}
+}
 // a 16-bit PPM of a 150 MP frame halved is 225 MB; the output buffer is bounded a little above that
 const MAX_OUTPUT_BYTES = 256 * 1024 * 1024;
 
@@ -123,7 +141,7 @@ function decoderMissing(label: string): FrameReadError {
  */
 export async function decodeRaw(bytes: Uint8Array, label: string, maxPixels: number): Promise<{ pixels: RawPixels; info: RawInfo }> {
 	try {
-		return await withTempFile(bytes, async (path) => {
+		return await inTurn(() => withTempFile(bytes, async (path) => {
 			const identified = await run('raw-identify', ['-v', path], 'utf8');
 			const info = parseIdentify(String(identified.stdout));
 			if (!info) throw cannotDecode(label);
@@ -132,19 +150,10 @@ export async function decodeRaw(bytes: Uint8Array, label: string, maxPixels: num
 			const pixels = parsePpm16(decoded.stdout as Buffer);
 			if (!pixels) throw /unexpected end|cannot unpack|input\/output/i.test(decoded.stderr) ? malformed(new Error(decoded.stderr), label) : cannotDecode(label);
 			return { pixels, info };
-		});
+		}));
 	} catch (error) {
 		if (error instanceof FrameReadError) throw error;
 		if (error instanceof RawToolMissing) throw decoderMissing(label);
 		throw malformed(error, label);
-	}
-}
-
-/** Settings LibRaw reads from any raw it knows, for the raw files whose Exif exifr cannot open. */
-export async function identifyRaw(bytes: Uint8Array): Promise<RawInfo | null> {
-	try {
-		return await withTempFile(bytes, async (path) => parseIdentify(String((await run('raw-identify', ['-v', path], 'utf8')).stdout)));
-	} catch {
-		return null;
 	}
 }
