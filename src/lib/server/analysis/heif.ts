@@ -52,6 +52,8 @@ parentPort.on('message', ({ id, bytes, maxPixels }) => {
 let worker: Worker | null = null;
 let nextId = 1;
 const pending = new Map<number, (answer: WorkerAnswer | Error) => void>();
+// a decode that has not answered by then is stopped with its thread (a hostile file must not hold the decoder for good)
+const DECODE_TIME_LIMIT_MS = 60_000;
 // WebAssembly memory only grows: a thread idle this long is ended, which gives back what its largest frame took
 const IDLE_MS = 30_000;
 let idleTimer: NodeJS.Timeout | null = null;
@@ -92,12 +94,19 @@ export async function decodeHeif(bytes: Uint8Array, maxPixels: number): Promise<
 	const id = nextId++;
 	if (idleTimer) clearTimeout(idleTimer);
 	idleTimer = null;
+	let timer: NodeJS.Timeout | undefined;
 	const answer = await new Promise<WorkerAnswer | Error>((resolve) => {
 		pending.set(id, resolve);
 		const w = theWorker();
 		w.ref(); // kept alive while a decode is pending
 		w.postMessage({ id, bytes: new Uint8Array(bytes), maxPixels });
-	}).finally(whenIdle);
+		// decodes run one after another, so the limit counts those queued ahead; ending the thread answers every
+		// pending decode with an error (the 'exit' handler), this one included
+		timer = setTimeout(() => void w.terminate(), DECODE_TIME_LIMIT_MS * pending.size);
+	}).finally(() => {
+		clearTimeout(timer);
+		whenIdle();
+	});
 	if (answer instanceof Error) throw malformed(answer, 'HEIC');
 	if (answer.ok) return { data: answer.data, width: answer.width, height: answer.height, channels: 4 };
 	if (answer.reason === 'too-many-pixels') throw tooManyPixels(answer.width ?? null, answer.height ?? null, maxPixels);
