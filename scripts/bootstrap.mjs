@@ -187,6 +187,28 @@ function setPaymentDefaults() {
 const tsx = (script, args = []) => must(process.execPath, [join(root, 'node_modules/tsx/dist/cli.mjs'), script, ...args]);
 const bin = (name) => join(root, 'node_modules', '.bin', name);
 
+const onPath = (tool) => (env.PATH ?? '').split(':').some((dir) => dir && existsSync(join(dir, tool)));
+
+/**
+ * Debian's decoders for frames sharp cannot read: LibRaw's tools (libraw-bin) decode raw files; the tests also make
+ * HEIC frames with heif-enc (libheif-examples). HEIC itself is decoded by libheif-js from npm, so needs nothing here.
+ * Without root `npm start` carries on, and raw files are refused with a message saying the decoder is missing.
+ */
+function ensureFrameDecoders() {
+	const wanted = [
+		['raw-identify', 'libraw-bin'],
+		['dcraw_emu', 'libraw-bin']
+	];
+	if (mode === 'test' || mode === 'bench') wanted.push(['heif-enc', 'libheif-examples']);
+	const missing = [...new Set(wanted.filter(([tool]) => !onPath(tool)).map(([, pkg]) => pkg))];
+	if (missing.length === 0) return;
+	if (!isRoot && mode === 'start') {
+		log(`raw files will be refused until these Debian packages are installed: ${missing.join(' ')}`);
+		return;
+	}
+	aptInstall(missing);
+}
+
 function ensureChromium() {
 	const path = env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 	if (existsSync(path)) return;
@@ -239,6 +261,7 @@ async function main() {
 	const dbName = { start: 'stopwise', db: 'stopwise', test: env.STOPWISE_TEST_DB ?? 'stopwise_test', bench: 'stopwise_bench' }[mode];
 	if (!dbName) fail(`unknown mode ${mode}`);
 	await ensureDatabase(dbName);
+	ensureFrameDecoders();
 	env.STOPWISE_DATA_DIR ??= join(root, '.data', mode === 'start' ? 'files' : `files-${mode}`);
 	log('applying migrations');
 	tsx('scripts/migrate.ts');
