@@ -29,7 +29,7 @@ export default defineConfig({
 		url: `http://127.0.0.1:${port}/api/health`,
 		reuseExistingServer: false,
 		timeout: 60_000,
-		// BODY_SIZE_LIMIT: adapter-node's default (512K) would refuse every photo upload
-		env: { PORT: String(port), HOST: '127.0.0.1', ORIGIN: `http://127.0.0.1:${port}`, BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '500M' }
+		// BODY_SIZE_LIMIT as `npm start` sets it: a lesson image or one part of a resumable frame upload (frames come in parts)
+		env: { PORT: String(port), HOST: '127.0.0.1', ORIGIN: `http://127.0.0.1:${port}`, BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '16M' }
 	}
 });
