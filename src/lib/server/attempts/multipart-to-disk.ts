@@ -35,7 +35,8 @@ export async function readMultipartToDisk(request: Request, limits: MultipartLim
 
 	let parser: busboy.Busboy;
 	try {
-		parser = busboy({ headers: { 'content-type': type }, limits: { fileSize: limits.fileBytes, files: limits.files, fields: limits.fields, fieldSize: limits.fieldBytes, parts: limits.files + limits.fields } });
+		parser = busboy({ headers: { 'content-type': type }, // busboy calls a file that reaches `fileSize` bytes truncated: one byte over the limit is the first refused
+		limits: { fileSize: Math.floor(limits.fileBytes) + 1, files: limits.files, fields: limits.fields, fieldSize: limits.fieldBytes, parts: limits.files + limits.fields } });
 	} catch {
 		await cleanup();
 		return { ok: false, reason: 'bad-request', message: 'Send the frames as a multipart form (the upload page does this).' };

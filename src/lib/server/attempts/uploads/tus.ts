@@ -27,6 +27,11 @@ export function refusal(status: number, error: string, message: string): Refusal
 	return { status_code: status, body: JSON.stringify({ error, message }) };
 }
 
+function tooLarge(size: number): Refusal {
+	const mb = (bytes: number) => Math.round(bytes / 2 ** 20);
+	return refusal(413, 'too-large', `This file is ${mb(size)} MB; the limit is ${mb(maxUploadBytes())} MB. Export a JPEG at full size and normal quality, which stays well under it.`);
+}
+
 // the signed-in person of each request in flight (the tus hooks receive only the request)
 const uploaders = new WeakMap<Request, Uploader>();
 
@@ -42,9 +47,7 @@ async function checkStart(req: Request, upload: Upload): Promise<{ metadata?: Up
 	if (!meta.ok) throw refusal(400, 'bad-request', meta.message);
 	if (upload.size === undefined) throw refusal(400, 'bad-request', 'Say the size of the frame when the upload starts (Upload-Length).');
 	const limit = maxUploadBytes();
-	if (upload.size > limit) {
-		throw refusal(413, 'too-large', `This file is ${Math.round(upload.size / 2 ** 20)} MB; the limit is ${Math.round(limit / 2 ** 20)} MB. Export a JPEG at full size and normal quality, which stays well under it.`);
-	}
+	if (upload.size > limit) throw tooLarge(upload.size);
 	if (upload.size === 0) throw refusal(400, 'bad-request', 'This file is empty. Please choose the photo again.');
 
 	const assignment = await findAssignment(meta.assignment);
@@ -99,11 +102,10 @@ function createServer(): Server {
 			await markFinished(upload.id);
 			return {};
 		},
-		onResponseError(_req, error) {
+		onResponseError(req, error) {
 			if ('status_code' in error) {
-				if (error.status_code === 413 && !error.body.startsWith('{')) {
-					return refusal(413, 'too-large', `The frame is larger than the limit of ${Math.round(maxUploadBytes() / 2 ** 20)} MB.`);
-				}
+				// tus checks the declared length against maxSize before our own check: answer in the same words
+				if (error.status_code === 413 && !error.body.startsWith('{')) return tooLarge(Number(req.headers.get('upload-length')) || maxUploadBytes() + 1);
 				return undefined;
 			}
 			console.error('[uploads]', error.message);
@@ -115,9 +117,34 @@ function createServer(): Server {
 
 let server: Server | undefined;
 
+/**
+ * A part's body that ends, instead of failing, where the connection was cut: tus then keeps every byte that arrived and
+ * the learner's next HEAD resumes from there, not from the start of the part. The request limit's 413 still fails.
+ */
+function keepWhatArrives(body: ReadableStream<Uint8Array>): ReadableStream<Uint8Array> {
+	const reader = body.getReader();
+	return new ReadableStream<Uint8Array>({
+		async pull(controller) {
+			try {
+				const { done, value } = await reader.read();
+				if (done) controller.close();
+				else controller.enqueue(value);
+			} catch (error) {
+				if ((error as { status?: number } | null)?.status === 413) controller.error(error);
+				else controller.close();
+			}
+		},
+		cancel: (reason) => reader.cancel(reason)
+	});
+}
+
 /** Answers one tus request (POST, HEAD, PATCH, DELETE) for a signed-in person. */
-export async function handleUpload(request: Request, user: Uploader): Promise<Response> {
+export async function handleUpload(incoming: Request, user: Uploader): Promise<Response> {
 	server ??= createServer();
+	const request =
+		incoming.method === 'PATCH' && incoming.body
+			? new Request(incoming.url, { method: 'PATCH', headers: incoming.headers, body: keepWhatArrives(incoming.body), duplex: 'half' } as RequestInit)
+			: incoming;
 	uploaders.set(request, user);
 	const response = await server.handleWeb(request);
 	// a cancelled upload leaves no row behind (tus removed its bytes)
