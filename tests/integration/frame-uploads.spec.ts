@@ -34,7 +34,8 @@ const metadata = (m: Record<string, string>) =>
 
 /** Runs one tus request through the app's input gate and session hook, into the route's handler. */
 async function tus(method: string, path: string, cookies: TestCookies | undefined, headers: Record<string, string>, body?: BodyInit) {
-	const event = makeEvent({ method, path, cookies, routeId: path === '/api/v1/uploads' ? '/api/v1/uploads' : '/api/v1/uploads/[id]' });
+	const single = path !== '/api/v1/uploads';
+	const event = makeEvent({ method, path, cookies, routeId: single ? '/api/v1/uploads/[id]' : '/api/v1/uploads', params: single ? { id: path.split('/').pop()! } : {} });
 	const url = new URL(path, event.url.origin);
 	(event as { request: Request }).request = new Request(url, {
 		method,

@@ -138,6 +138,22 @@ function keepWhatArrives(body: ReadableStream<Uint8Array>): ReadableStream<Uint8
 	});
 }
 
+/** tus answers its own protocol errors (a missing header, a wrong offset) in plain text: every API error here is JSON. */
+async function asJsonError(response: Response): Promise<Response> {
+	if (response.status < 400 || !response.body) return response;
+	const text = await response.text();
+	if (text.startsWith('{')) return new Response(text, { status: response.status, headers: withJsonType(response.headers) });
+	const headers = withJsonType(response.headers);
+	headers.delete('content-length');
+	return new Response(JSON.stringify({ error: 'upload-protocol', message: text.trim() || 'The upload request could not be used.' }), { status: response.status, headers });
+}
+
+function withJsonType(headers: Headers): Headers {
+	const copy = new Headers(headers);
+	copy.set('content-type', 'application/json');
+	return copy;
+}
+
 /** Answers one tus request (POST, HEAD, PATCH, DELETE) for a signed-in person. */
 export async function handleUpload(incoming: Request, user: Uploader): Promise<Response> {
 	server ??= createServer();
@@ -146,7 +162,7 @@ export async function handleUpload(incoming: Request, user: Uploader): Promise<R
 			? new Request(incoming.url, { method: 'PATCH', headers: incoming.headers, body: keepWhatArrives(incoming.body), duplex: 'half' } as RequestInit)
 			: incoming;
 	uploaders.set(request, user);
-	const response = await server.handleWeb(request);
+	const response = await asJsonError(await server.handleWeb(request));
 	// a cancelled upload leaves no row behind (tus removed its bytes)
 	if (request.method === 'DELETE' && response.status === 204) {
 		const id = new URL(request.url).pathname.split('/').pop() ?? '';
