@@ -21,8 +21,8 @@ export default defineConfig({
 		}
 	},
 	projects: [
-		{ name: 'desktop', use: { ...devices['Desktop Chrome'] }, testIgnore: /phone\.spec\.ts/ },
-		{ name: 'phone', use: { ...devices['Pixel 7'] }, testMatch: /phone\.spec\.ts/ }
+		{ name: 'desktop', use: { ...devices['Desktop Chrome'] }, testIgnore: /phone(-[a-z-]+)?\.spec\.ts/ },
+		{ name: 'phone', use: { ...devices['Pixel 7'] }, testMatch: /phone(-[a-z-]+)?\.spec\.ts/ }
 	],
 	webServer: {
 		command: 'node build',

@@ -11,7 +11,7 @@ import { dataDir, fileStore } from '$lib/server/storage';
 import { closeQueue, openQueue } from '$lib/server/attempts/queue';
 import { uploadDir } from '$lib/server/attempts/uploads/folder';
 import { sweepUploads } from '$lib/server/attempts/uploads/sweep';
-import { POST as create } from '../../src/routes/api/v1/uploads/+server';
+import { POST as create, DELETE as cancelAll } from '../../src/routes/api/v1/uploads/+server';
 import { DELETE, HEAD, PATCH } from '../../src/routes/api/v1/uploads/[id]/+server';
 import { POST as finish } from '../../src/routes/api/v1/attempts/from-uploads/+server';
 import { POST as postAttempt } from '../../src/routes/api/v1/attempts/+server';
@@ -34,7 +34,7 @@ const metadata = (m: Record<string, string>) =>
 
 /** Runs one tus request through the app's input gate and session hook, into the route's handler. */
 async function tus(method: string, path: string, cookies: TestCookies | undefined, headers: Record<string, string>, body?: BodyInit) {
-	const single = path !== '/api/v1/uploads';
+	const single = !/^\/api\/v1\/uploads(\?|$)/.test(path);
 	const event = makeEvent({ method, path, cookies, routeId: single ? '/api/v1/uploads/[id]' : '/api/v1/uploads', params: single ? { id: path.split('/').pop()! } : {} });
 	const url = new URL(path, event.url.origin);
 	(event as { request: Request }).request = new Request(url, {
@@ -43,7 +43,7 @@ async function tus(method: string, path: string, cookies: TestCookies | undefine
 		headers: { origin: url.origin, 'tus-resumable': '1.0.0', ...headers },
 		...(body instanceof ReadableStream ? { duplex: 'half' } : {})
 	} as RequestInit);
-	const handler = { POST: create, HEAD, PATCH, DELETE }[method as 'POST'];
+	const handler = single ? { HEAD, PATCH, DELETE }[method as 'PATCH'] : { POST: create, DELETE: cancelAll }[method as 'POST'];
 	const outcome = await throughHooks(event, (e) => handler(e as never));
 	if (outcome.kind !== 'value') throw new Error(`unexpected ${JSON.stringify(outcome)}`);
 	const response = outcome.value as Response;
@@ -207,6 +207,18 @@ describe('resumable frame uploads', () => {
 		expect((await rowsOf(learner.id)).find((r) => r.id === idOf(location))).toBeUndefined();
 		expect(existsSync(join(uploadDir(), idOf(location)))).toBe(false);
 		expect((await tus('HEAD', location, mine, {})).status).toBe(404);
+	});
+
+	test('cancelling a submission by its key removes all its frames, and only for its own learner', async () => {
+		const submission = key();
+		await start(mine, 'reference', 1000, submission);
+		await start(mine, 'lit', 1000, submission);
+		const cancel = (cookies: TestCookies, k: string) => tus('DELETE', `/api/v1/uploads?submissionKey=${k}`, cookies, {});
+		expect((await cancel(theirs, submission)).status).toBe(404);
+		expect((await rowsOf(learner.id)).filter((r) => r.submissionKey === submission)).toHaveLength(2);
+		expect((await cancel(mine, submission)).status).toBe(204);
+		expect((await rowsOf(learner.id)).filter((r) => r.submissionKey === submission)).toEqual([]);
+		expect((await cancel(mine, submission)).status).toBe(404);
 	});
 
 	test('the sweep removes expired uploads, stray bytes and attempt folders no attempt owns, and nothing else', async () => {

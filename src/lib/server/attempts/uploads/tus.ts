@@ -73,7 +73,8 @@ async function checkStart(req: Request, upload: Upload): Promise<{ metadata?: Up
 	return {};
 }
 
-async function dropSubmission(userId: string, submissionKey: string): Promise<void> {
+/** Forgets every upload of one submission: rows and bytes. */
+export async function dropSubmission(userId: string, submissionKey: string): Promise<void> {
 	const rows = await uploadsOfSubmission(userId, submissionKey);
 	await deleteUploadRows(rows.map((r) => r.id));
 	await Promise.all(rows.map((r) => removeUploadFiles(r.id)));
