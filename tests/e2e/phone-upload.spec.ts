@@ -6,7 +6,7 @@ import { rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import postgres from 'postgres';
 import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
-import { padJpeg } from './support/big-jpeg';
+import { padJpeg } from '../../src/lib/server/attempts/uploads/padded-jpeg';
 
 type Demo = { role: string; email: string; password: string };
 const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));

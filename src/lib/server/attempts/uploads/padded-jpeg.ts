@@ -1,5 +1,5 @@
-// A valid JPEG of a given size: a small camera-like frame with filler APP15 segments (which every decoder skips),
-// standing in for a large file from a camera without a multi-gigapixel picture to decode.
+// For tests and benches: a valid JPEG of a given size, a camera-like frame with filler APP15 segments (which every
+// decoder skips), standing in for a large file from a camera without a huge picture to decode.
 import { randomBytes } from 'node:crypto';
 
 const SEGMENT_PAYLOAD = 65_533; // a segment's length field counts itself: at most 65 535
