@@ -221,6 +221,17 @@ describe('resumable frame uploads', () => {
 		expect((await cancel(mine, submission)).status).toBe(404);
 	});
 
+	test('a learner keeps at most three other submissions in transit: starting a fifth drops the oldest', async () => {
+		const busy = await freshLearner();
+		await enrol(busy.id);
+		const cookies = await signedInCookies(busy.email);
+		const keys = [key(), key(), key(), key(), key()];
+		for (const k of keys.slice(0, 4)) expect((await start(cookies, 'lit', 1000, k)).status).toBe(201);
+		expect(new Set((await rowsOf(busy.id)).map((r) => r.submissionKey))).toEqual(new Set(keys.slice(0, 4)));
+		expect((await start(cookies, 'lit', 1000, keys[4])).status).toBe(201);
+		expect(new Set((await rowsOf(busy.id)).map((r) => r.submissionKey))).toEqual(new Set(keys.slice(1)));
+	});
+
 	test('the sweep removes expired uploads, stray bytes and attempt folders no attempt owns, and nothing else', async () => {
 		const stale = await start(mine, 'reference', 1000, key());
 		const staleId = idOf(stale.headers.get('location')!);

@@ -66,7 +66,7 @@ async function checkStart(req: Request, upload: Upload): Promise<{ metadata?: Up
 
 	// a learner who started and left several uploads keeps only the newest few in transit
 	const others = await otherOpenSubmissions(user.id, meta.submissionKey);
-	for (const key of others.slice(0, Math.max(0, others.length - OPEN_SUBMISSIONS + 1))) await dropSubmission(user.id, key);
+	for (const key of others.slice(0, Math.max(0, others.length - OPEN_SUBMISSIONS))) await dropSubmission(user.id, key);
 
 	const { replaced } = await recordUpload({ id: upload.id, userId: user.id, assignmentId: assignment.id, submissionKey: meta.submissionKey, frameName: meta.frame, size: upload.size });
 	if (replaced) await removeUploadFiles(replaced);
