@@ -8,7 +8,9 @@ import { eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { attemptFrames, frameUploads } from '$lib/server/db/schema';
 import { dataDir, fileStore } from '$lib/server/storage';
-import { closeQueue, openQueue } from '$lib/server/attempts/queue';
+import { closeQueue, openQueue, SWEEP_CRON, SWEEP_QUEUE } from '$lib/server/attempts/queue';
+import { startGradingWorker } from '$lib/server/attempts/worker';
+import { sql } from 'drizzle-orm';
 import { uploadDir } from '$lib/server/attempts/uploads/folder';
 import { sweepUploads } from '$lib/server/attempts/uploads/sweep';
 import { POST as create, DELETE as cancelAll } from '../../src/routes/api/v1/uploads/+server';
@@ -263,5 +265,15 @@ describe('resumable frame uploads', () => {
 		expect(existsSync(join(dataDir, 'attempts', kept))).toBe(true);
 		// an expired upload answers 404 to its learner afterwards
 		expect((await tus('HEAD', `/api/v1/uploads/${staleId}`, mine, {})).status).toBe(404);
+	});
+
+	test('the sweep is a pg-boss cron job that the workers schedule and run, not a timer of the web process', async () => {
+		const worker = await startGradingWorker();
+		try {
+			const rows = await db.execute(sql`select name, cron from pgboss.schedule where name = ${SWEEP_QUEUE}`);
+			expect([...rows]).toEqual([{ name: SWEEP_QUEUE, cron: SWEEP_CRON }]);
+		} finally {
+			await worker.stop();
+		}
 	});
 });
