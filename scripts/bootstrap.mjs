@@ -234,8 +234,9 @@ function serve() {
 	const host = env.HOST ?? '0.0.0.0';
 	env.PORT = port;
 	env.ORIGIN ??= `http://localhost:${port}`;
-	// adapter-node refuses bodies over 512K by default: room for an Assignment's frames at STOPWISE_MAX_UPLOAD_MB each
-	env.BODY_SIZE_LIMIT ??= '500M';
+	// the largest request body adapter-node accepts: a lesson image (15 MB) or one 4 MiB part of a resumable frame
+	// upload; frames of any size come in parts, forms are bounded at 2 MB by the input gate (src/lib/server/edge)
+	env.BODY_SIZE_LIMIT ??= '16M';
 	const app = spawn(process.execPath, ['build'], { cwd: root, env, stdio: 'inherit' });
 	children.push(app);
 	app.on('exit', (code) => shutdown(code ?? 0));
