@@ -1,14 +1,16 @@
 // `npm run bench`: runs each registered benchmark in turn; add a module under scripts/bench/ and list it below.
 import { gradingBench } from './bench/grading';
+import { cameraFormatsBench } from './bench/camera-formats';
 import { reviewQueueBench } from './bench/review-queue';
 import { uploadToVerdictBench } from './bench/upload-to-verdict';
 import { healthUnderGradingBench } from './bench/health-under-grading';
 import { signInTimingBench } from './bench/sign-in-timing';
 import { signUpTimingBench } from './bench/sign-up-timing';
 import { pageLoadBench } from './bench/page-load';
+import { uploadMemoryBench } from './bench/upload-memory';
 import type { Bench } from './bench/timing';
 
-const BENCHES: Bench[] = [gradingBench, reviewQueueBench, uploadToVerdictBench, healthUnderGradingBench, signInTimingBench, signUpTimingBench, pageLoadBench];
+const BENCHES: Bench[] = [gradingBench, cameraFormatsBench, reviewQueueBench, uploadToVerdictBench, healthUnderGradingBench, signInTimingBench, signUpTimingBench, pageLoadBench, uploadMemoryBench];
 
 async function main(): Promise<number> {
 	// `npm run bench -- grading` (or `npx tsx scripts/bench.ts grading`) runs only the benchmarks whose name holds the word

@@ -187,6 +187,28 @@ function setPaymentDefaults() {
 const tsx = (script, args = []) => must(process.execPath, [join(root, 'node_modules/tsx/dist/cli.mjs'), script, ...args]);
 const bin = (name) => join(root, 'node_modules', '.bin', name);
 
+const onPath = (tool) => (env.PATH ?? '').split(':').some((dir) => dir && existsSync(join(dir, tool)));
+
+/**
+ * Debian's decoders for frames sharp cannot read: LibRaw's tools (libraw-bin) decode raw files; the tests also make
+ * HEIC frames with heif-enc (libheif-examples). HEIC itself is decoded by libheif-js from npm, so needs nothing here.
+ * Without root `npm start` carries on, and raw files are refused with a message saying the decoder is missing.
+ */
+function ensureFrameDecoders() {
+	const wanted = [
+		['raw-identify', 'libraw-bin'],
+		['dcraw_emu', 'libraw-bin']
+	];
+	if (mode === 'test' || mode === 'bench') wanted.push(['heif-enc', 'libheif-examples']);
+	const missing = [...new Set(wanted.filter(([tool]) => !onPath(tool)).map(([, pkg]) => pkg))];
+	if (missing.length === 0) return;
+	if (!isRoot && mode === 'start') {
+		log(`raw files will be refused until these Debian packages are installed: ${missing.join(' ')}`);
+		return;
+	}
+	aptInstall(missing);
+}
+
 function ensureChromium() {
 	const path = env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 	if (existsSync(path)) return;
@@ -212,8 +234,9 @@ function serve() {
 	const host = env.HOST ?? '0.0.0.0';
 	env.PORT = port;
 	env.ORIGIN ??= `http://localhost:${port}`;
-	// adapter-node refuses bodies over 512K by default: room for an Assignment's frames at STOPWISE_MAX_UPLOAD_MB each
-	env.BODY_SIZE_LIMIT ??= '500M';
+	// the largest request body adapter-node accepts: a lesson image (15 MB) or one 4 MiB part of a resumable frame
+	// upload; frames of any size come in parts, forms are bounded at 2 MB by the input gate (src/lib/server/edge)
+	env.BODY_SIZE_LIMIT ??= '16M';
 	const app = spawn(process.execPath, ['build'], { cwd: root, env, stdio: 'inherit' });
 	children.push(app);
 	app.on('exit', (code) => shutdown(code ?? 0));
@@ -239,6 +262,7 @@ async function main() {
 	const dbName = { start: 'stopwise', db: 'stopwise', test: env.STOPWISE_TEST_DB ?? 'stopwise_test', bench: 'stopwise_bench' }[mode];
 	if (!dbName) fail(`unknown mode ${mode}`);
 	await ensureDatabase(dbName);
+	ensureFrameDecoders();
 	env.STOPWISE_DATA_DIR ??= join(root, '.data', mode === 'start' ? 'files' : `files-${mode}`);
 	log('applying migrations');
 	tsx('scripts/migrate.ts');

@@ -3,11 +3,9 @@
 // the figures compare across machines. The time is split into rounds that take the three pages in turn, and a ratio
 // is the median of the rounds' ratios: on a shared machine, other work coming and going then weighs on every page
 // alike instead of on whichever page was being measured. Run after `npm run build` (`npm run bench` builds first).
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync } from 'node:fs';
 import { once } from 'node:events';
-import { join } from 'node:path';
 import autocannon from 'autocannon';
+import { startBuiltApp } from './app-process';
 import type { Bench } from './timing';
 
 const COURSE = 'daylight-flash-for-action';
@@ -39,29 +37,12 @@ function median(values: number[]): number {
 	return sorted.length % 2 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
 }
 
-async function startApp(port: number): Promise<ChildProcess> {
-	if (!existsSync(join(process.cwd(), 'build', 'index.js'))) throw new Error('no built app in build/: run `npm run build` first');
-	const origin = `http://127.0.0.1:${port}`;
-	// grading stays out of this process: only page rendering is measured
-	const app = spawn(process.execPath, ['build'], {
-		env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: origin, STOPWISE_INLINE_WORKER: '0' },
-		stdio: ['ignore', 'ignore', 'inherit']
-	});
-	for (let tries = 0; tries < 120; tries++) {
-		if (app.exitCode !== null) throw new Error(`the app exited with ${app.exitCode}`);
-		const ok = await fetch(`${origin}/api/health`).then((r) => r.ok, () => false);
-		if (ok) return app;
-		await new Promise((r) => setTimeout(r, 250));
-	}
-	app.kill();
-	throw new Error(`the app did not answer on port ${port}`);
-}
-
 export const pageLoadBench: Bench = {
 	name: `pages under load: ${CONNECTIONS} connections for ${SECONDS} s each in ${ROUNDS} turns, against the built app (autocannon)`,
 	async run() {
 		const port = Number(process.env.STOPWISE_BENCH_APP_PORT ?? 4391);
-		const app = await startApp(port);
+		// grading stays out of this process: only page rendering is measured
+		const app = await startBuiltApp(port, { STOPWISE_INLINE_WORKER: '0' });
 		try {
 			const base = `http://127.0.0.1:${port}`;
 			const pages = { bare: `${base}/`, lesson: `${base}/courses/${COURSE}/${LESSON}`, course: `${base}/courses/${COURSE}` };

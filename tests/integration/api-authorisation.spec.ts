@@ -25,6 +25,17 @@ const expectations: Record<string, Record<string, Expectation>> = {
 	'/api/v1/admin/people': { GET: { path: '/api/v1/admin/people?q=demo&sort=email', status: adminOnly } },
 	'/api/v1/quiz-answers': { POST: { status: signedInNoBody } },
 	'/api/v1/attempts': { POST: { status: signedInNoBody } },
+	'/api/v1/attempts/from-uploads': { POST: { status: signedInNoBody } },
+	// the resumable upload (tus): a request without the protocol's Tus-Resumable header is refused with 412, as tus says
+	// and cancelling a submission the visitor has no uploads in finds nothing: 404
+	'/api/v1/uploads': {
+		POST: { status: { anonymous: 401, learner: 412, mentor: 412, author: 412, admin: 412 } },
+		DELETE: { path: '/api/v1/uploads?submissionKey=nothing-here-0', status: { anonymous: 401, learner: 404, mentor: 404, author: 404, admin: 404 } }
+	},
+	// someone else's upload and a missing one answer alike: 404
+	'/api/v1/uploads/[id]': Object.fromEntries(
+		['HEAD', 'PATCH', 'DELETE'].map((m) => [m, { path: `/api/v1/uploads/${'0'.repeat(32)}`, params: { id: '0'.repeat(32) }, status: { anonymous: 401, learner: 404, mentor: 404, author: 404, admin: 404 } }])
+	),
 	// someone else's attempt and a missing one answer alike: 404
 	'/api/v1/attempts/[id]': {
 		GET: { path: '/api/v1/attempts/00000000-0000-4000-8000-000000000000', params: { id: '00000000-0000-4000-8000-000000000000' }, status: { anonymous: 401, learner: 404, mentor: 404, author: 404, admin: 404 } }

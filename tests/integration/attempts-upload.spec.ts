@@ -119,13 +119,13 @@ describe('POST /api/v1/attempts', () => {
 		expect(await attemptIdsOf(learner.id)).toEqual(before);
 	});
 
-	test('a frame over the size limit is refused with the limit in the message', async () => {
+	test('a frame over the size limit is refused while it streams in, with the frame and the limit in the message', async () => {
 		const previous = process.env.STOPWISE_MAX_UPLOAD_MB;
 		process.env.STOPWISE_MAX_UPLOAD_MB = String(pair.lit.length / 2 / 1024 / 1024);
 		try {
 			const { status, body } = await post(uploadData({ assignment: ASSIGNMENT, submissionKey: key() }, pair));
-			expect(status).toBe(422);
-			expect(body.frames.lit).toMatch(/^This file is \d+ MB; the limit is \d+ MB\./);
+			expect(status).toBe(413);
+			expect(body.message).toMatch(/^The file for “(reference|lit)” is larger than the limit of \d+ MB\./);
 		} finally {
 			if (previous === undefined) delete process.env.STOPWISE_MAX_UPLOAD_MB;
 			else process.env.STOPWISE_MAX_UPLOAD_MB = previous;

@@ -119,7 +119,7 @@ async function tinyJpeg(): Promise<File> {
 
 describe('API routes for attempts and uploads', () => {
 	test('the walk finds the upload route (guards the walk itself)', () => {
-		expect(paidApiRoutes.map((r) => r.id)).toContain('/api/v1/attempts');
+		expect(paidApiRoutes.map((r) => r.id)).toEqual(expect.arrayContaining(['/api/v1/attempts', '/api/v1/uploads', '/api/v1/uploads/[id]', '/api/v1/attempts/from-uploads']));
 	});
 
 	for (const route of paidApiRoutes) {
@@ -152,7 +152,22 @@ describe('API routes for attempts and uploads', () => {
 				form.append('frame:lit', await tinyJpeg());
 				const url = new URL(`/api/${path}`, 'http://localhost:4173');
 				const event = makeEvent({ method, path: url.pathname, cookies: learner.cookies, params, routeId: id });
-				const withBody = method === 'GET' || method === 'DELETE' ? event : { ...event, request: new Request(url, { method, body: form, headers: { origin: url.origin } }) };
+				// the resumable upload speaks tus: its metadata, not a form, names the assignment
+				const tus = id.startsWith('/api/v1/uploads')
+					? {
+							'tus-resumable': '1.0.0',
+							'upload-length': '1000',
+							'upload-offset': '0',
+							'content-type': 'application/offset+octet-stream',
+							'upload-metadata': `assignment ${Buffer.from(assignment.slug).toString('base64')},frame ${Buffer.from('lit').toString('base64')},submissionKey ${Buffer.from(randomBytes(12).toString('hex')).toString('base64')}`
+						}
+					: null;
+				const withBody =
+					method === 'GET' || method === 'DELETE' || method === 'HEAD'
+						? { ...event, request: new Request(url, { method, headers: { origin: url.origin, ...tus } }) }
+						: tus
+							? { ...event, request: new Request(url, { method, body: method === 'PATCH' ? new Uint8Array(1000) : null, headers: { origin: url.origin, ...tus } }) }
+							: { ...event, request: new Request(url, { method, body: form, headers: { origin: url.origin } }) };
 				const outcome = await throughHooks(withBody as never, (e) => (mod[method] as (e: unknown) => Response | Promise<Response>)(e));
 				const status = outcome.kind === 'value' ? (outcome.value as Response).status : outcome.kind === 'error' ? outcome.status : 0;
 				expect([403, 404], `${method} ${id} as a non-enrolled learner answered ${status}`).toContain(status);

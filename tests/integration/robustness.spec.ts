@@ -12,8 +12,8 @@ import { httpMethods, listApiRoutes } from './support/api-routes';
 import { pointAppAt } from './support/payments';
 import { ownBodyRoutes } from '$lib/server/edge/guard-input';
 
-function uploadEvent(path: string, form: FormData, routeId: string, cookies: Awaited<ReturnType<typeof signedInCookies>> | undefined) {
-	const event = makeEvent({ method: 'POST', path, routeId, cookies });
+function uploadEvent(path: string, form: FormData, routeId: string, cookies: Awaited<ReturnType<typeof signedInCookies>> | undefined, params: Record<string, string> = {}) {
+	const event = makeEvent({ method: 'POST', path, routeId, cookies, params });
 	Object.assign(event, { request: new Request(event.url, { method: 'POST', body: form, headers: { origin: event.url.origin } }) });
 	return event;
 }
@@ -184,20 +184,23 @@ describe('characters PostgreSQL cannot store', () => {
 				const path = ['/api', ...route.parts.map((p) => (/^\[/.test(p) ? (params[p.slice(1, -1).split('=')[0]] = 'x\u0000') : p))].join('/');
 				const cookies = await cookiesFor('admin');
 				const ownBody = ownBodyRoutes.has(route.id);
+				// a request with these methods carries no body
+				const bodyless = method === 'GET' || method === 'HEAD';
 				const form = new FormData();
 				for (const bad of hostileInForms) form.append('assignment', bad);
 				form.append('alt', hostile[0]);
 				form.append('file', new File([new Uint8Array([0xff, 0xd8, 0xff])], `frame${hostile[0]}.jpg`, { type: 'image/jpeg' }));
 				const variants = [
 					makeEvent({ method, path: `${path}?q=${encodeURIComponent(hostile[0])}`, params, routeId: route.id, cookies }),
-					...(method === 'GET' ? [] : [makeEvent({ method, path, json: { body: hostile[0], answer: hostile[2] }, params, routeId: route.id, cookies })]),
-					...(method === 'GET' || !ownBody ? [] : [uploadEvent(path, form, route.id, cookies)])
+					...(bodyless ? [] : [makeEvent({ method, path, json: { body: hostile[0], answer: hostile[2] }, params, routeId: route.id, cookies })]),
+					...(bodyless || !ownBody ? [] : [uploadEvent(path, form, route.id, cookies, params)])
 				];
 				for (const event of variants) {
 					const outcome = await throughHooks(event, (e) => handler(e));
 					const label = `${method} ${event.url.pathname}${event.url.search} ${event.request.headers.get('content-type')}`;
 					// routes that read their own bodies refuse a bad body themselves, with a 400 of their own
-					if (ownBody && !event.url.search) {
+					// (unless the address itself carries the characters: the input gate refuses that first)
+					if (ownBody && !event.url.search && Object.keys(params).length === 0) {
 						expect(outcome.kind === 'value' && (outcome.value as Response).status, label).toBe(400);
 						continue;
 					}

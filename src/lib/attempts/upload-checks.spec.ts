@@ -1,6 +1,6 @@
 // Client-side upload checks: messages for wrong type, size and missing frames; progress split per file.
 import { describe, expect, it } from 'vitest';
-import { checkChosenFile, formatMegabytes, missingFramesMessage, progressPerFile } from './upload-checks';
+import { ACCEPT, checkChosenFile, formatMegabytes, missingFramesMessage, progressPerFile } from './upload-checks';
 
 const MB = 1024 * 1024;
 
@@ -9,10 +9,19 @@ describe('checkChosenFile', () => {
 		expect(checkChosenFile({ name: 'DSC_0042.JPG', type: 'image/jpeg', size: 9 * MB }, 40 * MB)).toBeNull();
 		expect(checkChosenFile({ name: 'lit.webp', type: '', size: MB }, 40 * MB)).toBeNull();
 	});
-	it('says what to do with a wrong type, HEIC, RAW, an empty or an oversized file', () => {
+
+	it('accepts phones\' HEIC and raw files by type or by name (the server decodes both)', () => {
+		expect(checkChosenFile({ name: 'IMG_1.HEIC', type: 'image/heic', size: MB }, 40 * MB)).toBeNull();
+		expect(checkChosenFile({ name: 'IMG_2.heif', type: '', size: MB }, 40 * MB)).toBeNull();
+		for (const name of ['run.NEF', 'run.dng', 'run.CR3', 'run.ARW', 'run.RAF', 'run.RW2', 'run.ORF']) {
+			expect(checkChosenFile({ name, type: '', size: MB }, 40 * MB), name).toBeNull();
+		}
+		expect(ACCEPT).toContain('.heic');
+		expect(ACCEPT).toContain('.dng');
+	});
+
+	it('says what to do with a wrong type, an empty or an oversized file', () => {
 		expect(checkChosenFile({ name: 'notes.pdf', type: 'application/pdf', size: MB }, 40 * MB)).toMatch(/not a photo we can read/);
-		expect(checkChosenFile({ name: 'IMG_1.HEIC', type: 'image/heic', size: MB }, 40 * MB)).toMatch(/HEIC/);
-		expect(checkChosenFile({ name: 'run.NEF', type: '', size: MB }, 40 * MB)).toMatch(/Raw files/);
 		expect(checkChosenFile({ name: 'a.jpg', type: 'image/jpeg', size: 0 }, 40 * MB)).toMatch(/empty/);
 		expect(checkChosenFile({ name: 'a.jpg', type: 'image/jpeg', size: 41 * MB }, 40 * MB)).toBe(
 			'This file is 41 MB; the limit is 40 MB. Export a JPEG at full size and normal quality, which stays well under it.'

@@ -1,12 +1,17 @@
 // Checks a browser can make before sending frames (the server checks again, by the file's bytes), and per-file progress.
 
-/** What the file picker offers: photos a camera or phone writes. */
-export const ACCEPT = 'image/jpeg,image/png,image/webp,image/tiff,image/avif,.jpg,.jpeg,.png,.webp,.tif,.tiff,.avif,.heic,.heif';
+// raw formats by the names cameras give them (browsers give most of them no media type)
+const RAW_EXTENSIONS = ['dng', 'nef', 'nrw', 'cr2', 'cr3', 'arw', 'srf', 'sr2', 'raf', 'rw2', 'orf', 'pef', 'srw', 'rwl', '3fr', 'iiq'];
 
-const MEASURABLE = /\.(jpe?g|png|webp|tiff?|avif)$/i;
-const MEASURABLE_TYPES = new Set(['image/jpeg', 'image/png', 'image/webp', 'image/tiff', 'image/avif']);
-const HEIC = /\.(heic|heif)$/i;
-const RAW = /\.(cr2|cr3|nef|arw|dng|orf|rw2|raf|pef|srw)$/i;
+/** What the file picker offers: photos a camera or phone writes, HEIC and raw included. */
+export const ACCEPT = [
+	'image/jpeg,image/png,image/webp,image/tiff,image/avif,image/heic,image/heif',
+	'.jpg,.jpeg,.png,.webp,.tif,.tiff,.avif,.heic,.heif',
+	RAW_EXTENSIONS.map((e) => `.${e}`).join(',')
+].join(',');
+
+const MEASURABLE = new RegExp(`\\.(jpe?g|png|webp|tiff?|avif|heic|heif|${RAW_EXTENSIONS.join('|')})$`, 'i');
+const MEASURABLE_TYPES = new Set(['image/jpeg', 'image/png', 'image/webp', 'image/tiff', 'image/avif', 'image/heic', 'image/heif', 'image/x-adobe-dng']);
 
 export interface ChosenFile {
 	name: string;
@@ -24,12 +29,8 @@ export function formatMegabytes(bytes: number): string {
 /** A plain reason this file will not do, or null. */
 export function checkChosenFile(file: ChosenFile, maxBytes: number): string | null {
 	if (file.size === 0) return 'This file is empty. Please choose the photo again.';
-	if (HEIC.test(file.name) || /heic|heif/i.test(file.type)) {
-		return 'HEIC photos cannot be measured or shown here. Set your phone to save JPEG, or export a JPEG.';
-	}
-	if (RAW.test(file.name)) return 'Raw files cannot be measured or shown here. Upload a JPEG export of the same frame.';
 	if (!MEASURABLE_TYPES.has(file.type) && !MEASURABLE.test(file.name)) {
-		return 'This is not a photo we can read. Upload a JPEG (or PNG, WebP, TIFF, AVIF) straight from the camera or your editor.';
+		return 'This is not a photo we can read. Upload a JPEG, HEIC or raw file (DNG and the raw formats of common cameras) straight from the camera or phone, or a PNG, WebP, TIFF or AVIF from your editor.';
 	}
 	if (file.size > maxBytes) {
 		return `This file is ${formatMegabytes(file.size)}; the limit is ${formatMegabytes(maxBytes)}. Export a JPEG at full size and normal quality, which stays well under it.`;

@@ -51,7 +51,7 @@ export function checkInput(bytes: Uint8Array, limits: InputLimits): FileType {
 	if (type.kind === 'unknown') {
 		throw new FrameReadError(
 			'unsupported-type',
-			'This file is not a photo we can read. Upload a JPEG (or PNG, WebP, TIFF, AVIF) straight from the camera or your editor.'
+			'This file is not a photo we can read. Upload a JPEG, HEIC or raw file (DNG and the raw formats of common cameras) straight from the camera or phone, or a PNG, WebP, TIFF or AVIF from your editor.'
 		);
 	}
 	if (type.kind === 'gif') {
@@ -98,17 +98,20 @@ export async function readHeader(bytes: Uint8Array, limits: InputLimits): Promis
 	}
 }
 
-/** The Exif block from a container sharp can parse but not decode (HEIC); null when there is none. */
+/** The Exif block from a container sharp can parse but not decode (HEIC: libheif reads the header, sharp's build has no HEVC); null when there is none. */
 export async function readEmbeddedExif(bytes: Uint8Array, limits: InputLimits): Promise<Buffer | null> {
 	const meta = await sharp(bytes, { limitInputPixels: limits.maxPixels }).metadata();
 	return meta.exif ?? null;
 }
 
 export interface DecodedImage {
-	data: Uint8Array;
+	/** 8-bit sRGB codes, or linear 16-bit values when `linear` (raw files) */
+	data: Uint8Array | Uint16Array;
 	width: number;
 	height: number;
 	channels: number;
+	/** a raw file's linear data: measured as it is, with no sRGB transfer function to undo */
+	linear?: boolean;
 }
 
 /** Oriented 8-bit sRGB pixels at analysisSizeFor(header size); `size` is the oriented full size from readHeader. */

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import sharp from 'sharp';
 import { detectFileType } from './detect';
+import { makeDng } from './test-dng';
 
 const bytes = (...parts: (string | number[])[]) =>
 	new Uint8Array(parts.flatMap((p) => (typeof p === 'string' ? Array.from(p, (c) => c.charCodeAt(0)) : p)));
@@ -21,12 +22,20 @@ describe('detectFileType', () => {
 		expect(detectFileType(await base.clone().gif().toBuffer()).kind).toBe('gif');
 	});
 
-	it('marks HEIC and raw containers as not decodable here', () => {
-		expect(detectFileType(ftyp('heic', 'mif1', 'heic'))).toMatchObject({ kind: 'heic', decodable: false });
-		expect(detectFileType(ftyp('crx ', 'crx '))).toMatchObject({ kind: 'raw', decodable: false });
+	it('sends HEIC to libheif and raw containers to LibRaw, naming the raw format', () => {
+		// ISO/IEC 23008-12 brands, major or compatible
+		expect(detectFileType(ftyp('heic', 'mif1', 'heic'))).toMatchObject({ kind: 'heic', decoder: 'heif', decodable: true });
+		expect(detectFileType(ftyp('mif1', 'mif1', 'heic'))).toMatchObject({ kind: 'heic', decoder: 'heif' });
+		expect(detectFileType(ftyp('crx ', 'crx '))).toMatchObject({ kind: 'raw', label: 'raw (CR3)', decoder: 'raw' });
 		expect(detectFileType(bytes('II*', [0], [8, 0, 0, 0], 'CR', [2, 0]))).toMatchObject({ kind: 'raw', label: 'raw (CR2)' });
-		expect(detectFileType(bytes('IIRO', [8, 0, 0, 0, 0, 0]))).toMatchObject({ kind: 'raw' });
-		expect(detectFileType(bytes('FUJIFILMCCD-RAW 0201'))).toMatchObject({ kind: 'raw' });
+		expect(detectFileType(bytes('IIRO', [8, 0, 0, 0, 0, 0]))).toMatchObject({ kind: 'raw', label: 'raw (ORF)' });
+		expect(detectFileType(bytes('FUJIFILMCCD-RAW 0201'))).toMatchObject({ kind: 'raw', label: 'raw (RAF)' });
+	});
+
+	it('tells a DNG from a plain TIFF by the DNGVersion tag of its first directory (DNG 1.4, chapter 4)', async () => {
+		expect(detectFileType(makeDng({ width: 32, height: 32, subject: { stops: 0 }, background: { stops: 0 } }))).toMatchObject({ kind: 'raw', label: 'raw (DNG)', decoder: 'raw' });
+		const tiff = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#777' } }).tiff().toBuffer();
+		expect(detectFileType(tiff)).toMatchObject({ kind: 'tiff', decoder: 'sharp' });
 	});
 
 	it('does not trust a name: random bytes and text are unknown', () => {

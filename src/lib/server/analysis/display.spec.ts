@@ -4,6 +4,8 @@ import sharp from 'sharp';
 import { displayCopies, DISPLAY_SIZE, THUMBNAIL_SIZE } from './display';
 import { FrameReadError } from './errors';
 import { makeFrame, REFERENCE_EXIF } from './test-frames';
+import { makeDng } from './test-dng';
+import { makeHeic } from './test-heic';
 
 /** The chunk types of a RIFF/WebP file (RIFF header, then FourCC + size + data, padded to even). */
 function webpChunks(bytes: Buffer): string[] {
@@ -66,6 +68,22 @@ describe('displayCopies', () => {
 	it('refuses what it cannot show with a typed error', async () => {
 		await expect(displayCopies(Buffer.from('not a photo'))).rejects.toBeInstanceOf(FrameReadError);
 		const heic = Buffer.concat([Buffer.from([0, 0, 0, 24]), Buffer.from('ftypheic\0\0\0\0mif1heic', 'latin1'), Buffer.alloc(64)]);
-		await expect(displayCopies(heic)).rejects.toMatchObject({ code: 'not-decodable' });
+		await expect(displayCopies(heic)).rejects.toMatchObject({ code: 'malformed' });
+	});
+
+	it('shows a HEIC from its decoded pixels and a DNG rendered from its linear data, with no metadata', async () => {
+		const heic = await makeHeic({ width: 2400, height: 1600, subject: { stops: 0 }, background: { stops: -1 }, exif: { ...REFERENCE_EXIF, personal: true } });
+		const dng = makeDng({ width: 2400, height: 1600, subject: { stops: 0 }, background: { stops: -1 }, exif: REFERENCE_EXIF });
+		for (const source of [heic, dng]) {
+			const { large, thumbnail } = await displayCopies(source);
+			expect([large.width, large.height]).toEqual([DISPLAY_SIZE, Math.round((DISPLAY_SIZE * 1600) / 2400)]);
+			expect(Math.max(thumbnail.width, thumbnail.height)).toBe(THUMBNAIL_SIZE);
+			expect(webpChunks(large.data).filter((t) => !['VP8 ', 'VP8L', 'VP8X', 'ALPH'].includes(t))).toEqual([]);
+			expect(large.data.includes(Buffer.from('SN-0042-TEST'))).toBe(false);
+		}
+		// the DNG's mid-grey subject is shown at sRGB code 118, as a JPEG shows 18 % grey (IEC 61966-2-1: 0.18 encodes to 0.461)
+		const { data, info } = await sharp((await displayCopies(dng)).large.data).raw().toBuffer({ resolveWithObject: true });
+		const centre = (Math.floor(info.height / 2) * info.width + Math.floor(info.width / 2)) * info.channels;
+		expect(Math.abs(data[centre + 1] - 118)).toBeLessThanOrEqual(2);
 	});
 });

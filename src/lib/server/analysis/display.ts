@@ -2,6 +2,8 @@
 import sharp, { type Sharp } from 'sharp';
 import { FrameReadError } from './errors';
 import { checkInput, explainSharpError, resolveLimits, sharpInput, type InputLimits } from './decode';
+import { cameraFormatForDisplay } from './camera-formats';
+import type { FileType } from './detect';
 
 export interface DisplayCopy {
 	data: Buffer;
@@ -26,7 +28,15 @@ async function encodeWebp(pipeline: Sharp, quality: number): Promise<DisplayCopy
 	return { data, width: info.width, height: info.height, format: 'webp' };
 }
 
-/** Rejects only with FrameReadError (HEIC and raw cannot be shown). */
+// HEIC from libheif's decode; raw rendered from LibRaw's linear decode (raw-levels.ts puts mid-grey where a JPEG does),
+// so a raw frame is shown as it was measured. Both arrive upright and with no metadata.
+async function cameraFormatPipeline(bytes: Uint8Array, type: FileType, limits: InputLimits): Promise<Sharp> {
+	const pixels = await cameraFormatForDisplay(bytes, type, limits, DISPLAY_SIZE);
+	const image = sharp(pixels.data, { raw: { width: pixels.width, height: pixels.height, channels: pixels.channels } });
+	return (pixels.channels === 4 ? image.removeAlpha() : image).resize({ width: DISPLAY_SIZE, height: DISPLAY_SIZE, fit: 'inside', withoutEnlargement: true });
+}
+
+/** Rejects only with FrameReadError (a file that is damaged, too large, or of a format or variant that cannot be decoded). */
 export async function displayCopies(bytes: Uint8Array, options: { limits?: Partial<InputLimits> } = {}): Promise<DisplayCopies> {
 	const limits = resolveLimits(options.limits);
 	const type = checkInput(bytes, limits);
@@ -35,11 +45,11 @@ export async function displayCopies(bytes: Uint8Array, options: { limits?: Parti
 	}
 	try {
 		// one decode: orientation applied, sRGB, at display size; both copies come from these pixels
-		const { data, info } = await sharpInput(bytes, limits)
-			.resize({ width: DISPLAY_SIZE, height: DISPLAY_SIZE, fit: 'inside', withoutEnlargement: true })
-			.toColourspace('srgb')
-			.raw()
-			.toBuffer({ resolveWithObject: true });
+		const pipeline =
+			type.decoder === 'sharp'
+				? sharpInput(bytes, limits).resize({ width: DISPLAY_SIZE, height: DISPLAY_SIZE, fit: 'inside', withoutEnlargement: true }).toColourspace('srgb')
+				: await cameraFormatPipeline(bytes, type, limits);
+		const { data, info } = await pipeline.raw().toBuffer({ resolveWithObject: true });
 		const raw = { raw: { width: info.width, height: info.height, channels: info.channels } } as const;
 		const [large, thumbnail] = await Promise.all([
 			encodeWebp(sharp(data, raw), DISPLAY_QUALITY),

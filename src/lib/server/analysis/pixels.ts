@@ -1,5 +1,6 @@
-// Measures an 8-bit sRGB image in linear light: histogram, clipping, a grid of cell levels, and robust subject and background levels.
-import { relativeLuminance, srgbDecode } from '../../exposure/index';
+// Measures an 8-bit sRGB image, or a raw file's linear 16-bit data, in linear light: histogram, clipping, a grid of cell levels, and robust subject and background levels.
+import { relativeLuminance, srgbDecode, srgbEncode } from '../../exposure/index';
+import { RAW_CLIP_SHARE, RAW_TO_SCENE_GAIN } from './raw-levels';
 import { measureColour } from './colour';
 import { cellPlaces, encodeGrid, gridSizeFor, type Cells, type LightGrid } from './light-grid';
 import { toPixelBounds, type Box } from './region';
@@ -41,10 +42,13 @@ export interface PixelMeasures {
 }
 
 export interface RgbImage {
-	data: Uint8Array;
+	/** 8-bit sRGB-encoded codes, or for `linear` images 16-bit linear values (0–65535 = black to the sensor's white). */
+	data: Uint8Array | Uint16Array;
 	width: number;
 	height: number;
 	channels: number;
+	/** true for a raw file's linear data: no sRGB transfer function to undo (raw-levels.ts places its mid-grey). */
+	linear?: boolean;
 }
 
 // Scene-referred mid-grey: 18 % reflectance renders at a linear level of 0.18 in an sRGB JPEG
@@ -120,6 +124,22 @@ const LUMA_R = Int32Array.from({ length: 256 }, (_, v) => Math.round(W_R * v * 6
 const LUMA_G = Int32Array.from({ length: 256 }, (_, v) => Math.round(W_G * v * 65536));
 const LUMA_B = Int32Array.from({ length: 256 }, (_, v) => Math.round(W_B * v * 65536));
 
+// Linear 16-bit value to the analysis's linear scale (mid-grey 0.18), to its 8-bit sRGB code for the histogram, and the
+// clip and crush thresholds: a raw file's levels on the same footing as a JPEG's
+let LINEAR_16: Float64Array | null = null;
+let CODE_16: Uint8Array | null = null;
+const CLIP_16 = Math.round(RAW_CLIP_SHARE * 65535);
+// every channel at or below the level an 8-bit sRGB file calls crushed
+const CRUSH_16 = Math.floor((srgbDecode(CRUSH_CODE / 255) / RAW_TO_SCENE_GAIN) * 65535);
+
+function linearTables(): { linear: Float64Array; code: Uint8Array } {
+	if (!LINEAR_16 || !CODE_16) {
+		LINEAR_16 = Float64Array.from({ length: 65536 }, (_, v) => (v / 65535) * RAW_TO_SCENE_GAIN);
+		CODE_16 = Uint8Array.from(LINEAR_16, (v) => Math.round(255 * srgbEncode(Math.min(1, v))));
+	}
+	return { linear: LINEAR_16, code: CODE_16 };
+}
+
 /** Runs of a row that lie in one cell and one region: [start x, end x, cell column, region] flattened. */
 function spansFor(width: number, cols: number, box: { x0: number; x1: number } | null): Int32Array {
 	const cuts = new Set<number>([0, width]);
@@ -179,6 +199,7 @@ function startPass(image: RgbImage, subjectBox: Box): Pass {
  * region, summed in locals: the hot loop of grading, about twice as fast as adding every pixel to the arrays.
  */
 function addRows(pass: Pass, yFrom: number, yTo: number): void {
+	if (pass.image.linear) return addLinearRows(pass, yFrom, yTo);
 	const { data, width, height, channels } = pass.image;
 	const { y0, y1 } = pass.bounds;
 	const { cols, rows, histogram, cells, regions } = pass;
@@ -208,6 +229,60 @@ function addRows(pass: Pass, yFrom: number, yTo: number): void {
 					sr += LINEAR[r];
 					sg += LINEAR[g];
 					sb += LINEAR[b];
+					usable++;
+				}
+			}
+			const count = spans[s + 1] - spans[s];
+			cells.total[c] += count;
+			cells.clipped[c] += clipped;
+			cells.crushed[c] += crushed;
+			cells.usable[c] += usable;
+			cells.r[c] += sr;
+			cells.g[c] += sg;
+			cells.b[c] += sb;
+			regions.total[k] += count;
+			regions.clipped[k] += clipped;
+			regions.crushed[k] += crushed;
+			regions.usable[k] += usable;
+			regions.r[k] += sr;
+			regions.g[k] += sg;
+			regions.b[k] += sb;
+		}
+	}
+}
+
+/** addRows for a raw file's linear 16-bit data: the same sums, with the values taken as linear light as they are. */
+function addLinearRows(pass: Pass, yFrom: number, yTo: number): void {
+	const { data, width, height, channels } = pass.image;
+	const { linear, code } = linearTables();
+	const { y0, y1 } = pass.bounds;
+	const { cols, rows, histogram, cells, regions } = pass;
+	for (let y = yFrom; y < yTo; y++) {
+		const spans = y >= y0 && y < y1 ? pass.across : pass.outside;
+		const rowBase = Math.floor((y * rows) / height) * cols;
+		const rowStart = y * width * channels;
+		for (let s = 0; s < spans.length; s += 4) {
+			const c = rowBase + spans[s + 2];
+			const k = spans[s + 3];
+			let sr = 0;
+			let sg = 0;
+			let sb = 0;
+			let usable = 0;
+			let clipped = 0;
+			let crushed = 0;
+			const end = rowStart + spans[s + 1] * channels;
+			for (let i = rowStart + spans[s] * channels; i < end; i += channels) {
+				const r = data[i];
+				const g = data[i + 1];
+				const b = data[i + 2];
+				// the histogram shows the frame as an sRGB rendering of the same levels would
+				histogram[(LUMA_R[code[r]] + LUMA_G[code[g]] + LUMA_B[code[b]] + 32768) >> 16]++;
+				if (r >= CLIP_16 || g >= CLIP_16 || b >= CLIP_16) clipped++;
+				else if (r <= CRUSH_16 && g <= CRUSH_16 && b <= CRUSH_16) crushed++;
+				else {
+					sr += linear[r];
+					sg += linear[g];
+					sb += linear[b];
 					usable++;
 				}
 			}

@@ -4,6 +4,8 @@ import sharp from 'sharp';
 import { FrameReadError } from './errors';
 import { readFrame, tryReadFrame } from './read-frame';
 import { makeFrame, REFERENCE_EXIF } from './test-frames';
+import { makeDng } from './test-dng';
+import { makeHeic } from './test-heic';
 
 const MB = 1024 * 1024;
 
@@ -153,42 +155,113 @@ describe('readFrame', () => {
 		expect(error.code).toBe('invalid-region');
 	});
 
-	it('reads only the settings of a raw file, with a note that pixels were not measured', async () => {
-		// A TIFF whose first directory says CFA (PhotometricInterpretation 32803, TIFF/EP and DNG): how RAW files look
+	it('decodes a raw file built as a TIFF with CFA data it cannot hold: a clear error naming raw', async () => {
+		// A TIFF whose first directory says CFA (PhotometricInterpretation 32803, TIFF/EP and DNG) but holds no raw data
 		const carrier = await sharp({ create: { width: 16, height: 16, channels: 3, background: '#777' } })
 			.jpeg()
 			.withExif({ IFD0: { Make: 'Example', PhotometricInterpretation: '32803' }, IFD2: { ExposureTime: '1/250', FNumber: '56/10', ISOSpeedRatings: '400' } })
 			.toBuffer();
 		const { exif } = await sharp(carrier).metadata();
-		const raw = exif!.subarray(6); // the TIFF structure after "Exif\0\0"
-		const frame = await readFrame(raw);
-		expect(frame.file.kind).toBe('raw');
-		expect(frame.pixels).toBeNull();
-		expect(frame.exif).toMatchObject({ exposureTime: 1 / 250, fNumber: 5.6, iso: 400 });
-		expect(frame.notes[0]).toMatch(/Pixels were not measured/);
+		const error = await rejection(readFrame(exif!.subarray(6))); // the TIFF structure after "Exif\0\0"
+		expect(['not-decodable', 'malformed']).toContain(error.code);
+		expect(error.message).toMatch(/raw/);
 	});
+});
 
-	it('reads only the settings of a HEIC file, with a note that pixels were not measured', async () => {
-		// sharp's bundled libheif decodes AV1 but not HEVC; an HEIF container branded 'heic' stands in for a phone's file
-		const avif = await sharp({ create: { width: 32, height: 32, channels: 3, background: '#777' } })
-			.avif()
-			.withExif({ IFD0: { Make: 'Example' }, IFD2: { ExposureTime: '1/1000', FNumber: '4/1', ISOSpeedRatings: '64' } })
-			.toBuffer();
-		const heic = Buffer.from(avif);
-		heic.write('heic', 8, 'latin1');
-		heic.write('heic', heic.indexOf('avif', 12, 'latin1'), 'latin1');
+describe('readFrame on HEIC and raw files', () => {
+	it('measures a HEIC frame like a JPEG and reads its Exif (ISO/IEC 23008-12 Exif item)', async () => {
+		const heic = await makeHeic({ width: 640, height: 480, subject: { stops: 1 }, background: { stops: -1 }, exif: REFERENCE_EXIF });
 		const frame = await readFrame(heic);
-		expect(frame.file.kind).toBe('heic');
-		expect(frame.pixels).toBeNull();
-		expect(frame.exif).toMatchObject({ exposureTime: 1 / 1000, fNumber: 4, iso: 64, make: 'Example' });
-		expect(frame.notes[0]).toMatch(/Pixels were not measured: HEIC/);
+		expect(frame.file).toMatchObject({ kind: 'heic', label: 'HEIC' });
+		expect(frame.exif).toMatchObject({ found: true, exposureTime: 1 / 500, fNumber: 8, iso: 100, model: 'Bench One' });
+		expect(frame.pixels).toMatchObject({ width: 640, height: 480, analysisWidth: 640, analysisHeight: 480 });
+		expect(frame.pixels!.subject.stops).toBeCloseTo(1, 1);
+		expect(frame.pixels!.background.stops).toBeCloseTo(-1, 1);
 	});
 
-	it('refuses a HEIC container it can neither decode nor read settings from', async () => {
+	it('converts a phone\'s Display P3 HEIC to sRGB by its ICC profile before measuring colour', async () => {
+		// a saturated blue in linear sRGB; in Display P3 (SMPTE EG 432-1 primaries, D65, the sRGB curve) its blue is about
+		// 0.42, so reading the P3 values as sRGB would be 0.03 off; converted by the profile it reads back within 0.01
+		const heic = await makeHeic({ width: 640, height: 480, subject: { stops: 0 }, background: { rgb: [0.05, 0.1, 0.45] }, exif: REFERENCE_EXIF, profile: 'p3' });
+		const [r, g, b] = (await readFrame(heic)).pixels!.background.rgb;
+		expect(Math.abs(r - 0.05)).toBeLessThan(0.01);
+		expect(Math.abs(g - 0.1)).toBeLessThan(0.01);
+		expect(Math.abs(b - 0.45)).toBeLessThan(0.01);
+	});
+
+	it('measures a DNG in linear light: levels as the scene was made, with a note saying so', async () => {
+		// mid-grey stored at 10/78 of white, where ISO 12232 saturation-based speed puts a metered 18 % grey (raw-levels.ts)
+		const dng = makeDng({ width: 1600, height: 1200, subject: { stops: 1.5 }, background: { stops: -2.5 }, exif: { ...REFERENCE_EXIF, flash: 0x19 } });
+		const frame = await readFrame(dng);
+		expect(frame.file).toMatchObject({ kind: 'raw', label: 'raw (DNG)' });
+		expect(frame.exif).toMatchObject({ exposureTime: 1 / 500, fNumber: 8, iso: 100, make: 'Stopwise Test' });
+		expect(frame.exif.flash?.fired).toBe(true);
+		// averaged in whole blocks of linear light down to the analysis size (1600 / 2 = 800 ≥ 720)
+		expect(frame.pixels).toMatchObject({ width: 1600, height: 1200, analysisWidth: 800, analysisHeight: 600 });
+		expect(frame.pixels!.subject.stops).toBeCloseTo(1.5, 2);
+		expect(frame.pixels!.background.stops).toBeCloseTo(-2.5, 2);
+		expect(frame.notes.join(' ')).toMatch(/linear light/);
+	});
+
+	it('decodes Bayer raw data as cameras record it: black level taken off, camera white balance applied, colours kept', async () => {
+		// a warm background in linear sRGB, behind an RGGB filter whose red and blue photosites see 0.5 and 0.7 of green
+		const dng = makeDng({ width: 1600, height: 1200, cfa: true, subject: { stops: 1 }, background: { rgb: [0.3, 0.18, 0.1] }, exif: REFERENCE_EXIF });
+		const frame = await readFrame(dng);
+		expect(frame.pixels!.subject.stops).toBeCloseTo(1, 2);
+		const [r, g, b] = frame.pixels!.background.rgb;
+		expect(r).toBeCloseTo(0.3, 2);
+		expect(g).toBeCloseTo(0.18, 2);
+		expect(b).toBeCloseTo(0.1, 2);
+	});
+
+	it('counts raw highlights at the white level as clipped and leaves them out of the level', async () => {
+		// 3 stops over mid-grey is 8 × 0.128 ≈ 1.03 of white: clipped in the raw data
+		const frame = await readFrame(makeDng({ subject: { stops: 3 }, background: { stops: -1 } }));
+		expect(frame.pixels!.subject.clippedShare).toBeGreaterThan(0.9);
+		expect(frame.pixels!.clippedHighlights).toBeGreaterThan(5);
+	});
+
+	it('refuses a cut-short DNG and a cut-short HEIC with messages naming the format', async () => {
+		const dng = await rejection(readFrame(makeDng({ subject: { stops: 0 }, background: { stops: 0 }, exif: REFERENCE_EXIF, truncate: true })));
+		expect(dng.code).toBe('malformed');
+		expect(dng.message).toMatch(/raw \(DNG\) file looks damaged or incomplete/);
+		const heic = await makeHeic({ subject: { stops: 0 }, background: { stops: 0 }, exif: REFERENCE_EXIF });
+		const cut = await rejection(readFrame(heic.subarray(0, Math.floor(heic.length * 0.6))));
+		expect(['malformed', 'not-decodable']).toContain(cut.code);
+		expect(cut.message).toMatch(/HEIC/);
+	});
+
+	it('says which raw format it cannot decode (a CR3 container with no image in it)', async () => {
+		const cr3 = Buffer.concat([Buffer.from([0, 0, 0, 24]), Buffer.from('ftypcrx \0\0\0\x01crx isom', 'latin1'), Buffer.alloc(4000, 9)]);
+		const error = await rejection(readFrame(cr3));
+		expect(error.code).toBe('not-decodable');
+		expect(error.message).toMatch(/^This raw \(CR3\) file could not be decoded here/);
+	});
+
+	it('says so when the raw decoder is not installed, instead of failing', async () => {
+		const path = process.env.PATH;
+		process.env.PATH = '/nonexistent';
+		try {
+			const error = await rejection(readFrame(makeDng({ subject: { stops: 0 }, background: { stops: 0 } })));
+			expect(error.code).toBe('not-decodable');
+			expect(error.message).toMatch(/^Raw \(DNG\) files cannot be decoded on this server just now/);
+		} finally {
+			process.env.PATH = path;
+		}
+	});
+
+	it('refuses a HEIC container with no image in it', async () => {
 		const heic = Buffer.concat([Buffer.from([0, 0, 0, 24]), Buffer.from('ftypheic\0\0\0\0mif1heic', 'latin1'), Buffer.alloc(200, 7)]);
 		const error = await rejection(readFrame(heic));
-		expect(error.code).toBe('not-decodable');
+		expect(error.code).toBe('malformed');
 		expect(error.message).toMatch(/HEIC/);
+	});
+
+	it('applies the pixel limit to raw and HEIC files before decoding them', async () => {
+		const dng = makeDng({ width: 400, height: 300, subject: { stops: 0 }, background: { stops: 0 } });
+		expect((await rejection(readFrame(dng, { limits: { maxPixels: 100_000 } }))).message).toMatch(/400 × 300 pixels/);
+		const heic = await makeHeic({ width: 400, height: 300, subject: { stops: 0 }, background: { stops: 0 } });
+		expect((await rejection(readFrame(heic, { limits: { maxPixels: 100_000 } }))).code).toBe('too-many-pixels');
 	});
 });
 

@@ -1,7 +1,9 @@
 // Reads one uploaded frame: its camera settings from Exif and its light measured from the pixels.
 import { FrameReadError, malformed } from './errors';
 import { checkInput, decodeForAnalysis, readEmbeddedExif, readHeader, resolveLimits, type ImageHeader, type InputLimits } from './decode';
-import type { FileKind } from './detect';
+import { decodeCameraFormat } from './camera-formats';
+import type { FileKind, FileType } from './detect';
+import type { RawInfo } from './raw';
 import { emptyExifReport, looksLikeCameraRaw, normaliseExif, readExifTags, type ExifReport, type ExifTags } from './exif';
 import { measurePixelsInSlices, type PixelMeasures } from './pixels';
 import { checkBox, DEFAULT_SUBJECT_BOX, type Box } from './region';
@@ -19,7 +21,7 @@ export interface PixelReport extends PixelMeasures {
 export interface Frame {
 	file: { kind: FileKind; label: string; bytes: number };
 	exif: ExifReport;
-	/** null when the pixels could not be measured (HEIC, raw); `notes` says why. */
+	/** null when the pixels could not be measured; `notes` says why. */
 	pixels: PixelReport | null;
 	/** Things a learner or mentor should know about how this frame was read. */
 	notes: string[];
@@ -46,15 +48,6 @@ function exifSource(kind: FileKind, bytes: Uint8Array, header: ImageHeader): Uin
 	return header.exif ?? (kind === 'jpeg' || kind === 'png' ? bytes : null);
 }
 
-// Labels such as "raw (CR3)" are written mid-sentence; a message that opens with one needs a capital.
-function sentenceStart(label: string): string {
-	return label.charAt(0).toUpperCase() + label.slice(1);
-}
-
-function exifOnlyNote(label: string): string {
-	return `Pixels were not measured: ${label} files cannot be decoded here, so only the camera settings were read. Upload a JPEG export for a full check.`;
-}
-
 async function quietly<T>(work: () => Promise<T>): Promise<T | null> {
 	try {
 		return await work();
@@ -63,21 +56,60 @@ async function quietly<T>(work: () => Promise<T>): Promise<T | null> {
 	}
 }
 
-// HEIC and RAW: settings only. exifr reads HEIC and TIFF-based RAW itself; libheif (via sharp's
-// header read, no decode) is the second try for HEIC containers exifr cannot follow.
-async function readUndecodable(bytes: Uint8Array, file: Frame['file'], limits: InputLimits): Promise<Frame> {
-	let tags = await quietly(() => readExifTags(bytes));
-	if (!tags && file.kind === 'heic') {
+// HEIC: the Exif item through libheif's header read in sharp (an Exif item may start straight at its TIFF header,
+// ISO/IEC 23008-12 annex A, which exifr's own HEIC reader does not follow), then exifr on the whole file.
+// Raw: exifr reads the TIFF-based ones (DNG, NEF, ARW, CR2, PEF…); LibRaw's reading is the fallback for the rest.
+async function cameraFormatExif(bytes: Uint8Array, type: FileType, limits: InputLimits, notes: string[]): Promise<ExifTags | null> {
+	if (type.decoder === 'heif') {
 		const block = await quietly(() => readEmbeddedExif(bytes, limits));
-		if (block) tags = await quietly(() => readExifTags(block));
+		const fromBlock = block ? await quietly(() => readExifTags(block)) : null;
+		if (fromBlock) return fromBlock;
 	}
-	if (!tags) {
-		throw new FrameReadError(
-			'not-decodable',
-			`${sentenceStart(file.label)} files cannot be measured here and this one carries no readable camera settings. Upload a JPEG export instead.`
-		);
+	const whole = await quietly(() => readExifTags(bytes));
+	if (whole) return whole;
+	if (type.decoder === 'heif') notes.push('This file carries no camera settings (Exif) we could read; criteria that need them cannot be checked.');
+	return null;
+}
+
+// the settings LibRaw read, under the Exif tag names normaliseExif reads
+function tagsFromRawInfo(info: RawInfo): ExifTags | null {
+	const tags: ExifTags = {};
+	if (info.make) tags.Make = info.make;
+	if (info.model) tags.Model = info.model;
+	if (info.exposureTime) tags.ExposureTime = info.exposureTime;
+	if (info.fNumber) tags.FNumber = info.fNumber;
+	if (info.iso) tags.ISO = info.iso;
+	if (info.focalLength) tags.FocalLength = info.focalLength;
+	return Object.keys(tags).length ? tags : null;
+}
+
+/** HEIC and raw: decoded by libheif or LibRaw (camera-formats.ts), Exif read meanwhile, measured like any frame. */
+async function readCameraFormat(bytes: Uint8Array, type: FileType, file: Frame['file'], subjectBox: Box, limits: InputLimits): Promise<Frame> {
+	const notes: string[] = [];
+	const decoding = decodeCameraFormat(bytes, type, limits);
+	decoding.catch(() => {}); // awaited below; this only stops an early rejection going unhandled
+	let tags = await cameraFormatExif(bytes, type, limits, notes);
+	const decoded = await decoding;
+	if (!tags && decoded.rawInfo) {
+		tags = tagsFromRawInfo(decoded.rawInfo);
+		if (tags) notes.push('The camera settings were read by the raw decoder; the flash, exposure compensation and white balance tags were not available.');
 	}
-	return { file, exif: normaliseExif(tags), pixels: null, notes: [exifOnlyNote(file.label)] };
+	if (!tags && notes.length === 0) notes.push('This file carries no camera settings (Exif); criteria that need them cannot be checked.');
+	const measures = await measurePixelsInSlices(decoded.image, subjectBox);
+	if (decoded.image.linear) notes.push('Measured from the raw data in linear light, with the camera\'s white balance.');
+	return {
+		file,
+		exif: tags ? normaliseExif(tags) : emptyExifReport(),
+		pixels: {
+			width: decoded.width,
+			height: decoded.height,
+			analysisWidth: decoded.image.width,
+			analysisHeight: decoded.image.height,
+			subjectBox: { ...subjectBox },
+			...measures
+		},
+		notes
+	};
 }
 
 /**
@@ -100,15 +132,16 @@ async function readChecked(bytes: Uint8Array, options: ReadFrameOptions): Promis
 
 	const type = checkInput(bytes, limits);
 	const file = { kind: type.kind, label: type.label, bytes: bytes.length };
-	if (!type.decodable) return readUndecodable(bytes, file, limits);
+	if (type.decoder === 'heif' || type.decoder === 'raw') return readCameraFormat(bytes, type, file, subjectBox, limits);
 
 	const notes: string[] = [];
 	let tags: ExifTags | null | undefined;
 	if (type.kind === 'tiff') {
-		// NEF, ARW, DNG… are TIFF containers: their first directory says so before any decoding
+		// detect.ts tells raw from TIFF by the first directory; Exif saying raw where it did not is decoded as raw all the same
 		tags = await parseExif(bytes, notes);
 		if (looksLikeCameraRaw(tags)) {
-			return { file: { ...file, kind: 'raw', label: 'raw' }, exif: normaliseExif(tags), pixels: null, notes: [exifOnlyNote('raw'), ...notes] };
+			const raw: FileType = { kind: 'raw', label: 'raw', decodable: true, decoder: 'raw' };
+			return readCameraFormat(bytes, raw, { ...file, kind: 'raw', label: 'raw' }, subjectBox, limits);
 		}
 	}
 

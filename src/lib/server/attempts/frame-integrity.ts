@@ -1,6 +1,7 @@
 // Upload checks on a frame's pixels that the display copies do not make: big enough to measure, and not damaged.
 import sharp from 'sharp';
 import { MIN_SIDE } from '../analysis/decode';
+import type { FileType } from '../analysis/detect';
 
 /** The smallest side the analysis measures; a smaller frame is refused at upload rather than stored and left ungraded. */
 export const MIN_FRAME_SIDE = MIN_SIDE;
@@ -11,7 +12,9 @@ export const MIN_FRAME_SIDE = MIN_SIDE;
  * shrink-on-load decode still reads every coded block. Extra bytes before the end marker, which some cameras
  * write, are harmless and pass.
  */
-export async function framePixelsProblem(bytes: Uint8Array, maxPixels: number): Promise<string | null> {
+export async function framePixelsProblem(bytes: Uint8Array, maxPixels: number, type?: FileType): Promise<string | null> {
+	// libheif and LibRaw refuse damaged data and too-small frames as they decode (the display copies already did)
+	if (type && type.decoder !== 'sharp') return null;
 	const meta = await sharp(bytes, { limitInputPixels: maxPixels }).metadata();
 	const width = meta.autoOrient?.width ?? meta.width ?? 0;
 	const height = meta.autoOrient?.height ?? meta.height ?? 0;

@@ -12,7 +12,13 @@ export interface GradeJobData {
 	attemptId: string;
 }
 
+/** The hourly sweep of abandoned uploads and orphan attempt folders (`uploads/sweep.ts`), a pg-boss cron job. */
+export const SWEEP_QUEUE = 'sweep-uploads';
+export const SWEEP_CRON = '23 * * * *';
+
 export interface QueueOptions {
+	/** Whether this process fires pg-boss cron schedules (the workers' processes do; a process that only sends, not). */
+	schedule?: boolean;
 	/** How often this process runs pg-boss maintenance (which retries jobs of crashed workers). */
 	maintenanceIntervalSeconds?: number;
 }
@@ -28,7 +34,7 @@ async function open(options: QueueOptions): Promise<PgBoss> {
 		connectionString: databaseUrl,
 		application_name: 'stopwise-queue',
 		max: 4,
-		schedule: false,
+		schedule: options.schedule ?? false,
 		maintenanceIntervalSeconds: options.maintenanceIntervalSeconds ?? 30
 	});
 	boss.on('error', (error) => console.error('[queue]', error.message));
@@ -42,6 +48,7 @@ async function open(options: QueueOptions): Promise<PgBoss> {
 		expireInSeconds: EXPIRE_SECONDS,
 		deadLetter: GRADE_FAILED_QUEUE
 	});
+	await boss.createQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, retryLimit: 1, expireInSeconds: 15 * 60 });
 	return boss;
 }
 

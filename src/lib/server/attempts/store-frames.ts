@@ -2,7 +2,7 @@
 import { DEFAULT_LIMITS, detectFileType, displayCopies, FrameReadError } from '../analysis/index';
 import { framePixelsProblem } from './frame-integrity';
 import { fileStore } from '../storage/index';
-import { frameKeys, MIME_TYPES } from './keys';
+import { frameKeys, mimeFor, MIME_TYPES } from './keys';
 import { maxUploadBytes } from './limits';
 
 export interface CheckedFrame {
@@ -10,6 +10,8 @@ export interface CheckedFrame {
 	index: number;
 	bytes: Uint8Array;
 	kind: keyof typeof MIME_TYPES;
+	/** for people and the original's extension, e.g. 'raw (DNG)' */
+	label: string;
 	large: Buffer;
 	thumb: Buffer;
 }
@@ -46,16 +48,16 @@ export async function checkFrames(names: readonly string[], files: Map<string, F
 			}
 			const bytes = new Uint8Array(await file.arrayBuffer());
 			try {
-				// displayCopies refuses, in the learner's words, every kind it cannot show (HEIC, RAW, GIF, unknown)
+				// displayCopies decodes (HEIC and raw too) and refuses, in the learner's words, what it cannot show (damaged, GIF, unknown)
 				const copies = await displayCopies(bytes, { limits: { maxBytes: limit } });
+				const type = detectFileType(bytes);
 				// too small to measure, or damaged data a lenient decode turned into grey: refused now, not graded later
-				const pixels = await framePixelsProblem(bytes, DEFAULT_LIMITS.maxPixels);
+				const pixels = await framePixelsProblem(bytes, DEFAULT_LIMITS.maxPixels, type);
 				if (pixels) {
 					problems[name] = pixels;
 					return;
 				}
-				const kind = detectFileType(bytes).kind as CheckedFrame['kind'];
-				frames.push({ name, index, bytes, kind, large: copies.large.data, thumb: copies.thumbnail.data });
+				frames.push({ name, index, bytes, kind: type.kind as CheckedFrame['kind'], label: type.label, large: copies.large.data, thumb: copies.thumbnail.data });
 			} catch (error) {
 				if (!(error instanceof FrameReadError)) throw error;
 				problems[name] = error.message;
@@ -73,7 +75,7 @@ export async function writeFrames(attemptId: string, frames: readonly CheckedFra
 	try {
 		const stored: StoredFrame[] = [];
 		for (const f of frames) {
-			const keys = frameKeys(attemptId, f.index, f.kind);
+			const keys = frameKeys(attemptId, f.index, f.kind, f.label);
 			for (const [key, data] of [
 				[keys.originalKey, f.bytes],
 				[keys.largeKey, f.large],
@@ -82,7 +84,7 @@ export async function writeFrames(attemptId: string, frames: readonly CheckedFra
 				await store.put(key, data);
 				written.push(key);
 			}
-			stored.push({ name: f.name, ...keys, mime: MIME_TYPES[f.kind]!, bytes: f.bytes.length });
+			stored.push({ name: f.name, ...keys, mime: mimeFor(f.kind, f.label), bytes: f.bytes.length });
 		}
 		return stored;
 	} catch (error) {

@@ -21,9 +21,12 @@ export type SubmitResult =
 	| { kind: 'not-found' }
 	| { kind: 'not-enrolled' }
 	| { kind: 'invalid'; message: string; frames: FrameProblems }
+	/** more files than the assignment has frames, or a file for a frame it does not have */
+	| { kind: 'too-many-parts'; message: string }
 	| { kind: 'unavailable'; message: string };
 
-async function existingAttempt(userId: string, submissionKey: string): Promise<string | null> {
+/** The attempt a submission key already made, if any. */
+export async function existingAttemptId(userId: string, submissionKey: string): Promise<string | null> {
 	const [row] = await db
 		.select({ id: attempts.id })
 		.from(attempts)
@@ -42,7 +45,7 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 	const assignment = await findAssignment(form.assignmentSlug);
 	if (!assignment) return { kind: 'not-found' };
 	if ((await decideAccess(user, guardedAssignment(assignment))) !== 'open') return { kind: 'not-enrolled' };
-	const earlier = await existingAttempt(user.id, form.submissionKey);
+	const earlier = await existingAttemptId(user.id, form.submissionKey);
 	if (earlier) return { kind: 'duplicate', id: earlier };
 	if (!assignment.spec) {
 		return { kind: 'unavailable', message: 'This assignment’s criteria are being fixed, so uploads are closed for now. Please try again later.' };
@@ -54,6 +57,14 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 	if (planProblem) return { kind: 'invalid', message: planProblem, frames: {} };
 	const planGate = await planGateMessage(assignment.spec, user.id, assignment.id);
 	if (planGate) return { kind: 'invalid', message: planGate, frames: {} };
+
+	// no more parts than the assignment has frames: an extra file is refused by name, never silently dropped
+	const extra = [...form.files.keys()].filter((name) => !assignment.spec!.frames.includes(name));
+	if (extra.length > 0) {
+		const names = assignment.spec.frames.map((f) => `“${f}”`).join(', ');
+		const message = `This assignment takes ${assignment.spec.frames.length} frame${assignment.spec.frames.length === 1 ? '' : 's'} (${names}); the upload also carried ${extra.map((f) => `“${f}”`).join(', ')}. Nothing was stored; send only the assignment’s frames.`;
+		return { kind: 'too-many-parts', message };
+	}
 
 	const { frames, problems } = await checkFrames(assignment.spec.frames, form.files);
 	if (Object.keys(problems).length > 0) {
@@ -85,7 +96,7 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 		if (!inserted) {
 			// the twin request committed first: keep its attempt, drop these files
 			await fileStore().deletePrefix(attemptFolder(id));
-			const twin = await existingAttempt(user.id, form.submissionKey);
+			const twin = await existingAttemptId(user.id, form.submissionKey);
 			return twin ? { kind: 'duplicate', id: twin } : { kind: 'unavailable', message: 'Your upload could not be stored. Please send it again.' };
 		}
 	} catch (error) {

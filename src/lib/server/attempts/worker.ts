@@ -4,7 +4,8 @@ import type PgBoss from 'pg-boss';
 import { client, db } from '../db/index';
 import { attempts } from '../db/schema';
 import { gradeAttempt, markGradingFailed, type GradeOptions } from './grade-job';
-import { GRADE_FAILED_QUEUE, GRADE_QUEUE, openQueue, queueGrading, registerLocalWorker, WAKE_CHANNEL, type GradeJobData, type QueueOptions } from './queue';
+import { sweepUploads } from './uploads/sweep';
+import { GRADE_FAILED_QUEUE, GRADE_QUEUE, SWEEP_CRON, SWEEP_QUEUE, openQueue, queueGrading, registerLocalWorker, WAKE_CHANNEL, type GradeJobData, type QueueOptions } from './queue';
 
 // a fallback only: a sent job wakes the worker at once
 const POLLING_SECONDS = 2;
@@ -39,7 +40,8 @@ function attemptIdOf(job: PgBoss.Job<GradeJobData>): string | null {
 }
 
 export async function startGradingWorker(options: WorkerOptions = {}): Promise<RunningWorker> {
-	const boss = await openQueue(options);
+	// the process that works the queues also fires the cron schedule (pg-boss lets one instance send each tick)
+	const boss = await openQueue({ schedule: true, ...options });
 	let id = '';
 	id = await boss.work<GradeJobData>(GRADE_QUEUE, { pollingIntervalSeconds: POLLING_SECONDS, batchSize: 1 }, async ([job]) => {
 		const attemptId = attemptIdOf(job);
@@ -52,6 +54,13 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 	const deadId = await boss.work<GradeJobData>(GRADE_FAILED_QUEUE, { pollingIntervalSeconds: 2, batchSize: 1 }, async ([job]) => {
 		const attemptId = attemptIdOf(job);
 		if (attemptId) await markGradingFailed(attemptId);
+	});
+
+	await boss.schedule(SWEEP_QUEUE, SWEEP_CRON);
+	const sweepId = await boss.work(SWEEP_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async () => {
+		const report = await sweepUploads();
+		if (report.uploads || report.strayFiles || report.orphanAttemptFolders) console.log('[worker] swept uploads', report);
+		return report;
 	});
 
 	const listener = await client.listen(WAKE_CHANNEL, () => boss.notifyWorker(id)).catch((error: unknown) => {
@@ -70,6 +79,7 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 			await listener?.unlisten().catch(() => undefined);
 			await boss.offWork({ id });
 			await boss.offWork({ id: deadId });
+			await boss.offWork({ id: sweepId });
 		}
 	};
 }

@@ -508,3 +508,31 @@ export const auditLog = pgTable(
 );
 export type AuditEntry = typeof auditLog.$inferSelect;
 // ---- end audit ----
+
+/**
+ * A frame on its way in through the resumable upload (tus): one row per frame of one submission, made when the upload
+ * starts and deleted once its attempt is stored or the upload expires. The bytes live in the upload folder under `id`.
+ */
+export const frameUploads = pgTable(
+	'frame_uploads',
+	{
+		/** the tus upload id (also the file's name in the upload folder) */
+		id: text('id').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		assignmentId: integer('assignment_id')
+			.notNull()
+			.references(() => assignments.id, { onDelete: 'cascade' }),
+		/** the key the attempt will carry: all frames of one submission share it */
+		submissionKey: text('submission_key').notNull(),
+		frameName: text('frame_name').notNull(),
+		/** bytes declared when the upload started (Upload-Length) */
+		size: integer('size').notNull(),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		/** when the last byte arrived; null while parts are still coming */
+		finishedAt: timestamp('finished_at', { withTimezone: true })
+	},
+	(t) => [uniqueIndex('frame_uploads_frame_idx').on(t.userId, t.submissionKey, t.frameName), index('frame_uploads_created_idx').on(t.createdAt)]
+);
+export type FrameUpload = typeof frameUploads.$inferSelect;

@@ -6,9 +6,18 @@ import { describeUnstorable, firstUnstorableInForm, firstUnstorableInJson, unsto
 
 /**
  * Routes that read (and bound) their own bodies: the frame and image uploads (too large to read twice; they run
- * `firstUnstorableInForm` on what they parse) and the signed webhook (which records a bad event as rejected).
+ * `firstUnstorableInForm` on what they parse), the resumable upload's parts (bytes of a photo, bounded by the upload's
+ * declared size, which its metadata check keeps within the frame limit) and the signed webhook (which records a bad
+ * event as rejected).
  */
-export const ownBodyRoutes = new Set(['/api/v1/attempts', '/api/v1/author/images', '/api/v1/author/spec-trial', '/api/v1/payments/webhook']);
+export const ownBodyRoutes = new Set([
+	'/api/v1/attempts',
+	'/api/v1/uploads',
+	'/api/v1/uploads/[id]',
+	'/api/v1/author/images',
+	'/api/v1/author/spec-trial',
+	'/api/v1/payments/webhook'
+]);
 
 /** Every other form or API body: room for the longest lesson text (100 000 characters, percent-encoded) and more. */
 export const maxFormBytes = 2 * 1024 * 1024;

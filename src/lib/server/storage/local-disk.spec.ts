@@ -42,6 +42,17 @@ describe('local disk store', () => {
 		await store.deletePrefix('attempts/never');
 	});
 
+	it('lists the folders under a prefix with when each was last written to; a missing prefix lists nothing', async () => {
+		const store = createLocalDiskStore(root);
+		await store.put('attempts/x/0-large.webp', Buffer.from('1'));
+		await store.put('attempts/y/0-large.webp', Buffer.from('2'));
+		await store.put('attempts/loose.bin', Buffer.from('3'));
+		const listed = await store.listFolders('attempts');
+		expect(listed.map((f) => f.name).sort()).toEqual(['x', 'y']);
+		for (const f of listed) expect(Date.now() - f.modifiedAt.getTime()).toBeLessThan(60_000);
+		expect(await store.listFolders('never')).toEqual([]);
+	});
+
 	it('refuses keys that could reach outside the root', () => {
 		for (const bad of ['../etc/passwd', 'a/../../b', '/abs', 'a//b', '', 'a/.hidden', 'a\\b']) expect(() => checkKey(bad), bad).toThrow(RangeError);
 		expect(checkKey('attempts/0b9f-1/0-original.jpg')).toEqual(['attempts', '0b9f-1', '0-original.jpg']);

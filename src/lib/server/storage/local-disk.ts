@@ -1,6 +1,6 @@
 // FileStore on the local disk under one root folder (STOPWISE_DATA_DIR); writes go to a temp name, then rename.
 import { randomBytes } from 'node:crypto';
-import { mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { mkdir, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
 import { checkKey, type FileStore } from './store';
 
@@ -35,6 +35,16 @@ export function createLocalDiskStore(root: string): FileStore {
 		},
 		async deletePrefix(prefix) {
 			await rm(pathOf(prefix), { recursive: true, force: true });
+		},
+		async listFolders(prefix) {
+			const folder = pathOf(prefix);
+			const entries = await readdir(folder, { withFileTypes: true }).catch((error: NodeJS.ErrnoException) => {
+				if (error.code === 'ENOENT') return [];
+				throw error;
+			});
+			const folders = entries.filter((e) => e.isDirectory());
+			// a folder's own time changes whenever a file is added to it or renamed into it
+			return Promise.all(folders.map(async (e) => ({ name: e.name, modifiedAt: (await stat(join(folder, e.name))).mtime })));
 		}
 	};
 }

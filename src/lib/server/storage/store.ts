@@ -10,6 +10,11 @@ export interface FileStore {
 	delete(key: string): Promise<void>;
 	/** Removes every key under `prefix/` (an attempt's folder); a missing prefix is not an error. */
 	deletePrefix(prefix: string): Promise<void>;
+	/**
+	 * The folders directly under `prefix/` (e.g. each attempt's under `attempts`) with when something in each was last
+	 * written, for the sweep of files left by a crash; a missing prefix lists nothing.
+	 */
+	listFolders(prefix: string): Promise<{ name: string; modifiedAt: Date }[]>;
 }
 
 const SEGMENT = /^[A-Za-z0-9][A-Za-z0-9._-]{0,127}$/;

@@ -1,53 +1,42 @@
-// POST a new Attempt: multipart form with the frames (one request, so the browser can show per-file progress).
+// POST a new Attempt in one multipart request (scripts and the API; the upload page sends frames by resumable upload
+// and then posts to ./from-uploads). The body streams to disk: no frame is held in memory while it arrives.
 import { json } from '@sveltejs/kit';
 import { checkApiAccess } from '$lib/server/guards';
-import { maxRequestBytes } from '$lib/server/attempts/limits';
+import { maxRequestBytes, maxUploadBytes } from '$lib/server/attempts/limits';
 import { firstUnstorableInForm, unstorableFormMessage } from '$lib/server/edge/unstorable';
 import { readUploadForm } from '$lib/server/attempts/upload-form';
 import { submitAttempt } from '$lib/server/attempts/submit';
+import { attemptAnswer } from '$lib/server/attempts/answer';
+import { readMultipartToDisk } from '$lib/server/attempts/multipart-to-disk';
 import type { RequestHandler } from './$types';
 
 // the most frames a spec may list (assignmentSpecSchema)
 const MAX_FRAMES = 12;
 
-const tooLarge = () =>
-	json({ error: 'too-large', message: 'The upload is larger than we accept. Each frame may be at most the size shown on the page.' }, { status: 413 });
-
-function payloadTooLarge(error: unknown): boolean {
-	return typeof error === 'object' && error !== null && (error as { status?: number }).status === 413;
-}
+const tooLarge = (message = 'The upload is larger than we accept. Each frame may be at most the size shown on the page.') => json({ error: 'too-large', message }, { status: 413 });
 
 export const POST: RequestHandler = async ({ locals, request }) => {
 	const access = checkApiAccess(locals);
 	if (!access.ok) return access.response;
 	const declared = Number(request.headers.get('content-length'));
-	if (Number.isFinite(declared) && declared > maxRequestBytes(MAX_FRAMES)) return tooLarge();
-
-	let data: FormData;
-	try {
-		data = await request.formData();
-	} catch (error) {
-		if (payloadTooLarge(error)) return tooLarge();
-		return json({ error: 'bad-request', message: 'Send the frames as a multipart form (the upload page does this).' }, { status: 400 });
+	if (Number.isFinite(declared) && declared > maxRequestBytes(MAX_FRAMES)) {
+		void request.body?.cancel().catch(() => undefined);
+		return tooLarge();
 	}
-	const unstorable = firstUnstorableInForm(data);
-	if (unstorable) return json({ error: 'bad-input', message: unstorableFormMessage(unstorable) }, { status: 400 });
-	const form = readUploadForm(data);
-	if (!form.ok) return json({ error: 'bad-request', message: form.message }, { status: 400 });
 
-	const result = await submitAttempt(access.user, form.form);
-	switch (result.kind) {
-		case 'created':
-			return json({ id: result.id, href: `/attempts/${result.id}` }, { status: 201 });
-		case 'duplicate':
-			return json({ id: result.id, href: `/attempts/${result.id}`, duplicate: true }, { status: 200 });
-		case 'not-found':
-			return json({ error: 'not-found', message: 'There is no such assignment.' }, { status: 404 });
-		case 'not-enrolled':
-			return json({ error: 'not-enrolled', message: 'Enrol in this course to upload its assignments.' }, { status: 403 });
-		case 'invalid':
-			return json({ error: 'invalid-frames', message: result.message, frames: result.frames }, { status: 422 });
-		case 'unavailable':
-			return json({ error: 'unavailable', message: result.message }, { status: 503 });
+	const read = await readMultipartToDisk(request, { fileBytes: maxUploadBytes(), files: MAX_FRAMES, fields: 20, fieldBytes: 256 * 1024 });
+	if (!read.ok) {
+		if (read.reason === 'too-large') return tooLarge(read.message);
+		if (read.reason === 'too-many-files') return json({ error: 'too-many-parts', message: read.message }, { status: 422 });
+		return json({ error: 'bad-request', message: read.message }, { status: 400 });
+	}
+	try {
+		const unstorable = firstUnstorableInForm(read.data);
+		if (unstorable) return json({ error: 'bad-input', message: unstorableFormMessage(unstorable) }, { status: 400 });
+		const form = readUploadForm(read.data);
+		if (!form.ok) return json({ error: 'bad-request', message: form.message }, { status: 400 });
+		return attemptAnswer(await submitAttempt(access.user, form.form));
+	} finally {
+		await read.cleanup();
 	}
 };

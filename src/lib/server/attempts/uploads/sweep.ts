@@ -1,0 +1,82 @@
+// Sweeps what uploads leave behind: expired or already-used resumable uploads (rows and bytes), bytes with no row,
+// temporary folders of one-request uploads, and attempt folders in the file store that no stored attempt owns (a
+// process that died between writing the files and committing the rows). Run by the pg-boss job in `worker.ts`.
+import { readdir, rm, stat } from 'node:fs/promises';
+import { join } from 'node:path';
+import { inArray } from 'drizzle-orm';
+import { db } from '../../db/index';
+import { attempts, frameUploads } from '../../db/schema';
+import { fileStore } from '../../storage/index';
+import { attemptFolder } from '../keys';
+import { isUploadId, removeUploadFiles, uploadDir } from './folder';
+import { deleteUploadRows, sweepableUploads } from './records';
+import { UPLOAD_TTL_MS } from './tus';
+
+/** An attempt folder or temporary upload this recent may still be in the middle of its request. */
+export const IN_FLIGHT_MS = 60 * 60 * 1000;
+
+export interface SweepReport {
+	uploads: number;
+	strayFiles: number;
+	orphanAttemptFolders: number;
+}
+
+export async function sweepUploads(now = new Date(), ttlMs = UPLOAD_TTL_MS, inFlightMs = IN_FLIGHT_MS): Promise<SweepReport> {
+	const report: SweepReport = { uploads: 0, strayFiles: 0, orphanAttemptFolders: 0 };
+
+	const stale = await sweepableUploads(new Date(now.getTime() - ttlMs));
+	for (const { id } of stale) await removeUploadFiles(id);
+	await deleteUploadRows(stale.map((r) => r.id));
+	report.uploads = stale.length;
+
+	report.strayFiles = await sweepStrayUploadFiles(now, ttlMs, inFlightMs);
+	report.orphanAttemptFolders = await sweepOrphanAttemptFolders(now, inFlightMs);
+	return report;
+}
+
+/** Upload bytes whose row is gone (a learner deleted, a crash before the row) and old one-request temp folders. */
+async function sweepStrayUploadFiles(now: Date, ttlMs: number, inFlightMs: number): Promise<number> {
+	const dir = uploadDir();
+	const names = await readdir(dir).catch(() => [] as string[]);
+	const ids = [...new Set(names.map((n) => n.replace(/\.json$/, '')).filter(isUploadId))];
+	const known = new Set<string>();
+	for (let i = 0; i < ids.length; i += 500) {
+		const rows = await db.select({ id: frameUploads.id }).from(frameUploads).where(inArray(frameUploads.id, ids.slice(i, i + 500)));
+		for (const r of rows) known.add(r.id);
+	}
+	let removed = 0;
+	for (const id of ids) {
+		if (known.has(id)) continue;
+		const info = (await stat(join(dir, `${id}.json`)).catch(() => null)) ?? (await stat(join(dir, id)).catch(() => null));
+		// a row is written before the bytes; one without a row for this long was never going to get one
+		if (info && now.getTime() - info.mtime.getTime() > Math.min(ttlMs, inFlightMs)) {
+			await removeUploadFiles(id);
+			removed++;
+		}
+	}
+	for (const name of names.filter((n) => n.startsWith('multipart-'))) {
+		const info = await stat(join(dir, name)).catch(() => null);
+		if (info && now.getTime() - info.mtime.getTime() > inFlightMs) {
+			await rm(join(dir, name), { recursive: true, force: true });
+			removed++;
+		}
+	}
+	return removed;
+}
+
+async function sweepOrphanAttemptFolders(now: Date, inFlightMs: number): Promise<number> {
+	const store = fileStore();
+	const folders = (await store.listFolders('attempts')).filter((f) => now.getTime() - f.modifiedAt.getTime() > inFlightMs);
+	let removed = 0;
+	for (let i = 0; i < folders.length; i += 500) {
+		const batch = folders.slice(i, i + 500).map((f) => f.name);
+		const rows = await db.select({ id: attempts.id }).from(attempts).where(inArray(attempts.id, batch));
+		const owned = new Set(rows.map((r) => r.id));
+		for (const name of batch) {
+			if (owned.has(name)) continue;
+			await store.deletePrefix(attemptFolder(name));
+			removed++;
+		}
+	}
+	return removed;
+}

@@ -1,0 +1,173 @@
+// The resumable upload endpoint (tus protocol, @tus/server on a file store): who may start, resume or cancel an upload,
+// and the limits: a known size up to the frame limit, only the assignment's own frames, one upload per frame.
+import { randomBytes } from 'node:crypto';
+import { Server, type Upload } from '@tus/server';
+import { FileStore } from '@tus/file-store';
+import type { AuthUser } from '../../auth';
+import { decideAccess, guardedAssignment } from '../../lessons/access';
+import { planGateMessage } from '../../shoot-plans/read';
+import { findAssignment } from '../assignment';
+import { maxUploadBytes } from '../limits';
+import { existingAttemptId } from '../submit';
+import { removeUploadFiles, uploadDir } from './folder';
+import { readUploadMetadata } from './metadata';
+import { deleteUploadRows, findUpload, markFinished, otherOpenSubmissions, recordUpload, uploadsOfSubmission } from './records';
+
+export const UPLOAD_PATH = '/api/v1/uploads';
+/** An upload not finished and made into an attempt within this time is swept (and answers 410 Gone before that). */
+export const UPLOAD_TTL_MS = 24 * 60 * 60 * 1000;
+/** Submissions one learner may have in transit besides the one being started; older ones are dropped. */
+const OPEN_SUBMISSIONS = 3;
+
+type Uploader = Pick<AuthUser, 'id' | 'roles'>;
+type Refusal = { status_code: number; body: string };
+
+/** A refusal the upload page shows as it is: a JSON body with a message in the learner's words. */
+export function refusal(status: number, error: string, message: string): Refusal {
+	return { status_code: status, body: JSON.stringify({ error, message }) };
+}
+
+function tooLarge(size: number): Refusal {
+	const mb = (bytes: number) => Math.round(bytes / 2 ** 20);
+	return refusal(413, 'too-large', `This file is ${mb(size)} MB; the limit is ${mb(maxUploadBytes())} MB. Export a JPEG at full size and normal quality, which stays well under it.`);
+}
+
+// the signed-in person of each request in flight (the tus hooks receive only the request)
+const uploaders = new WeakMap<Request, Uploader>();
+
+function uploaderOf(req: Request): Uploader {
+	const user = uploaders.get(req);
+	if (!user) throw refusal(401, 'sign-in', 'Sign in to upload your frames.');
+	return user;
+}
+
+async function checkStart(req: Request, upload: Upload): Promise<{ metadata?: Upload['metadata'] }> {
+	const user = uploaderOf(req);
+	const meta = readUploadMetadata(upload.metadata);
+	if (!meta.ok) throw refusal(400, 'bad-request', meta.message);
+	if (upload.size === undefined) throw refusal(400, 'bad-request', 'Say the size of the frame when the upload starts (Upload-Length).');
+	const limit = maxUploadBytes();
+	if (upload.size > limit) throw tooLarge(upload.size);
+	if (upload.size === 0) throw refusal(400, 'bad-request', 'This file is empty. Please choose the photo again.');
+
+	const assignment = await findAssignment(meta.assignment);
+	const access = await decideAccess(user, guardedAssignment(assignment));
+	if (access === 'missing' || !assignment) throw refusal(404, 'not-found', 'There is no such assignment.');
+	if (access !== 'open') throw refusal(403, 'not-enrolled', 'Enrol in this course to upload its assignments.');
+	if (!assignment.spec) throw refusal(503, 'unavailable', 'This assignment’s criteria are being fixed, so uploads are closed for now. Please try again later.');
+	const frames = assignment.spec.frames;
+	if (!frames.includes(meta.frame)) {
+		const names = frames.map((f) => `“${f}”`).join(', ');
+		throw refusal(422, 'too-many-parts', `This assignment takes ${frames.length} frame${frames.length === 1 ? '' : 's'} (${names}); there is no “${meta.frame}” frame to upload.`);
+	}
+	if (await existingAttemptId(user.id, meta.submissionKey)) throw refusal(409, 'already-sent', 'These frames were already sent. Reload the page to see the attempt.');
+	const gate = await planGateMessage(assignment.spec, user.id, assignment.id);
+	if (gate) throw refusal(403, 'plan-needed', gate);
+
+	// a learner who started and left several uploads keeps only the newest few in transit
+	const others = await otherOpenSubmissions(user.id, meta.submissionKey);
+	for (const key of others.slice(0, Math.max(0, others.length - OPEN_SUBMISSIONS))) await dropSubmission(user.id, key);
+
+	const { replaced } = await recordUpload({ id: upload.id, userId: user.id, assignmentId: assignment.id, submissionKey: meta.submissionKey, frameName: meta.frame, size: upload.size });
+	if (replaced) await removeUploadFiles(replaced);
+	return {};
+}
+
+/** Forgets every upload of one submission: rows and bytes. */
+export async function dropSubmission(userId: string, submissionKey: string): Promise<void> {
+	const rows = await uploadsOfSubmission(userId, submissionKey);
+	await deleteUploadRows(rows.map((r) => r.id));
+	await Promise.all(rows.map((r) => removeUploadFiles(r.id)));
+}
+
+/** Resuming (HEAD, PATCH) and cancelling (DELETE) are for the upload's own learner; anyone else learns nothing. */
+async function checkOwner(req: Request, id: string): Promise<void> {
+	const user = uploaderOf(req);
+	if (req.method === 'POST') return;
+	const row = await findUpload(id);
+	if (!row || row.userId !== user.id) throw refusal(404, 'not-found', 'This upload is not (or no longer) here. Send the frame again.');
+}
+
+function createServer(): Server {
+	const options: ConstructorParameters<typeof Server>[0] = {
+		path: UPLOAD_PATH,
+		relativeLocation: true,
+		datastore: new FileStore({ directory: uploadDir(), expirationPeriodInMilliseconds: UPLOAD_TTL_MS }),
+		maxSize: () => maxUploadBytes(),
+		// same origin only: no CORS headers for anyone
+		allowedOrigins: () => false,
+		namingFunction: () => randomBytes(16).toString('hex'),
+		onIncomingRequest: checkOwner,
+		onUploadCreate: checkStart,
+		async onUploadFinish(_req, upload) {
+			await markFinished(upload.id);
+			return {};
+		},
+		onResponseError(req, error) {
+			if ('status_code' in error) {
+				// tus checks the declared length against maxSize before our own check: answer in the same words
+				if (error.status_code === 413 && !error.body.startsWith('{')) return tooLarge(Number(req.headers.get('upload-length')) || maxUploadBytes() + 1);
+				return undefined;
+			}
+			console.error('[uploads]', error.message);
+			return refusal(500, 'upload-failed', 'The upload could not be stored just now. It resumes when you send again.');
+		}
+	};
+	return new Server(options);
+}
+
+let server: Server | undefined;
+
+/**
+ * A part's body that ends, instead of failing, where the connection was cut: tus then keeps every byte that arrived and
+ * the learner's next HEAD resumes from there, not from the start of the part. The request limit's 413 still fails.
+ */
+function keepWhatArrives(body: ReadableStream<Uint8Array>): ReadableStream<Uint8Array> {
+	const reader = body.getReader();
+	return new ReadableStream<Uint8Array>({
+		async pull(controller) {
+			try {
+				const { done, value } = await reader.read();
+				if (done) controller.close();
+				else controller.enqueue(value);
+			} catch (error) {
+				if ((error as { status?: number } | null)?.status === 413) controller.error(error);
+				else controller.close();
+			}
+		},
+		cancel: (reason) => reader.cancel(reason)
+	});
+}
+
+/** tus answers its own protocol errors (a missing header, a wrong offset) in plain text: every API error here is JSON. */
+async function asJsonError(response: Response): Promise<Response> {
+	if (response.status < 400 || !response.body) return response;
+	const text = await response.text();
+	if (text.startsWith('{')) return new Response(text, { status: response.status, headers: withJsonType(response.headers) });
+	const headers = withJsonType(response.headers);
+	headers.delete('content-length');
+	return new Response(JSON.stringify({ error: 'upload-protocol', message: text.trim() || 'The upload request could not be used.' }), { status: response.status, headers });
+}
+
+function withJsonType(headers: Headers): Headers {
+	const copy = new Headers(headers);
+	copy.set('content-type', 'application/json');
+	return copy;
+}
+
+/** Answers one tus request (POST, HEAD, PATCH, DELETE) for a signed-in person. */
+export async function handleUpload(incoming: Request, user: Uploader): Promise<Response> {
+	server ??= createServer();
+	const request =
+		incoming.method === 'PATCH' && incoming.body
+			? new Request(incoming.url, { method: 'PATCH', headers: incoming.headers, body: keepWhatArrives(incoming.body), duplex: 'half' } as RequestInit)
+			: incoming;
+	uploaders.set(request, user);
+	const response = await asJsonError(await server.handleWeb(request));
+	// a cancelled upload leaves no row behind (tus removed its bytes)
+	if (request.method === 'DELETE' && response.status === 204) {
+		const id = new URL(request.url).pathname.split('/').pop() ?? '';
+		await deleteUploadRows([id]);
+	}
+	return response;
+}

@@ -1,0 +1,122 @@
+// On a phone: a 40 MB frame goes up in parts, the connection drops during one part, the upload resumes from what the
+// server holds (not from zero) and the attempt is made; cancelling an upload leaves nothing on the server.
+import { expect, test, type Page } from '@playwright/test';
+import { readFileSync } from 'node:fs';
+import { rm } from 'node:fs/promises';
+import { join } from 'node:path';
+import postgres from 'postgres';
+import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
+import { padJpeg } from '../../src/lib/server/attempts/uploads/padded-jpeg';
+
+type Demo = { role: string; email: string; password: string };
+const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
+const learner = demo.find((d) => d.role === 'learner')!;
+
+const COURSE = 'daylight-flash-for-action';
+const LESSON = 'off-the-axis';
+const MB = 1024 * 1024;
+const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:54329/stopwise', { max: 2, onnotice: () => {} });
+let learnerId = '';
+let courseId = 0;
+
+async function removeAttempts() {
+	const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
+	const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
+	await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
+	await sql`delete from frame_uploads where user_id = ${learnerId}`;
+}
+
+async function openUploadPage(page: Page) {
+	const path = `/courses/${COURSE}/${LESSON}/assignments/${LESSON}`;
+	await page.goto(`/signin?redirectTo=${encodeURIComponent(path)}`);
+	await page.getByLabel('E-mail', { exact: true }).fill(learner.email);
+	await page.getByLabel('Password', { exact: true }).fill(learner.password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Off the axis');
+}
+
+/** A passing pair for "Off the axis" (reference 1/500 s, lit 1/1500 s: log2(3) ≈ 1.6 stops under, APEX), the lit one 40 MB. */
+async function pair() {
+	const reference = await makeFrame({ width: 900, height: 600, subject: { stops: 0 }, background: { stops: 0.5 }, exif: { ...REFERENCE_EXIF } });
+	const lit = await makeFrame({ width: 900, height: 600, subject: { stops: 0 }, background: { stops: 0.5 - Math.log2(3) }, exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash: 0x19 } });
+	return { reference, lit: padJpeg(lit, 40 * MB) };
+}
+
+test.beforeAll(async () => {
+	[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${learner.email}`;
+	[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
+	await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
+	await removeAttempts();
+});
+
+test.afterAll(async () => {
+	await removeAttempts();
+	await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
+	await sql.end();
+});
+
+test('a 40 MB frame survives a dropped connection and resumes where it stopped', async ({ page }) => {
+	test.setTimeout(180_000);
+	const { reference, lit } = await pair();
+	expect(lit.length).toBe(40 * MB);
+	await openUploadPage(page);
+
+	// the connection drops during the third part of the big frame (only the 40 MB frame reaches 8 MB)
+	const patches: { url: string; offset: number; dropped: boolean }[] = [];
+	let heads = 0;
+	await page.route('**/api/v1/uploads/*', async (route) => {
+		const request = route.request();
+		if (request.method() === 'HEAD') heads++;
+		if (request.method() !== 'PATCH') return route.continue();
+		const offset = Number(request.headers()['upload-offset']);
+		const drop = offset >= 8 * MB && !patches.some((p) => p.dropped);
+		patches.push({ url: request.url(), offset, dropped: drop });
+		if (drop) return route.abort('connectionreset');
+		return route.continue();
+	});
+
+	await page.getByTestId('frame-input-reference').setInputFiles({ name: 'reference.jpg', mimeType: 'image/jpeg', buffer: reference });
+	await page.getByTestId('frame-input-lit').setInputFiles({ name: 'lit.jpg', mimeType: 'image/jpeg', buffer: lit });
+	await expect(page.getByTestId('frame-slot-lit')).toContainText('40 MB');
+	await page.getByTestId('send-attempt').click();
+	await expect(page.getByTestId('frame-progress-lit')).toBeVisible();
+
+	await expect(page).toHaveURL(/\/attempts\/[0-9a-f-]{36}$/, { timeout: 150_000 });
+	const cut = patches.find((p) => p.dropped);
+	expect(cut, 'one part was cut off').toBeDefined();
+	// the client asked the server how much it holds (HEAD) and carried on from there: never from zero again
+	expect(heads).toBeGreaterThanOrEqual(1);
+	const later = patches.slice(patches.indexOf(cut!) + 1).filter((p) => p.url === cut!.url);
+	expect(later[0].offset).toBe(cut!.offset);
+	expect(later.every((p) => p.offset >= cut!.offset)).toBe(true);
+	expect(later.at(-1)!.offset).toBeGreaterThan(lit.length - 4 * MB - 1);
+
+	const [frames] = await sql<{ n: number; bytes: number }[]>`
+		select count(*)::int as n, max(bytes)::int as bytes from attempt_frames f join attempts a on a.id = f.attempt_id where a.user_id = ${learnerId}`;
+	expect(frames).toEqual({ n: 2, bytes: 40 * MB });
+	const [left] = await sql<{ n: number }[]>`select count(*)::int as n from frame_uploads where user_id = ${learnerId}`;
+	expect(left.n).toBe(0);
+});
+
+test('cancelling an upload stops it and leaves nothing on the server', async ({ page }) => {
+	test.setTimeout(120_000);
+	const { reference, lit } = await pair();
+	const attemptsNow = async () => (await sql<{ n: number }[]>`select count(*)::int as n from attempts where user_id = ${learnerId}`)[0].n;
+	const before = await attemptsNow();
+	await openUploadPage(page);
+	// slow the parts down so there is time to cancel
+	await page.route('**/api/v1/uploads/*', async (route) => {
+		if (route.request().method() === 'PATCH') await new Promise((r) => setTimeout(r, 700));
+		return route.continue().catch(() => undefined);
+	});
+	await page.getByTestId('frame-input-reference').setInputFiles({ name: 'reference.jpg', mimeType: 'image/jpeg', buffer: reference });
+	await page.getByTestId('frame-input-lit').setInputFiles({ name: 'lit.jpg', mimeType: 'image/jpeg', buffer: lit });
+	await page.getByTestId('send-attempt').click();
+	// cancelled part-way through the big frame
+	await expect(page.getByTestId('frame-progress-lit')).not.toHaveText('0%');
+	await page.getByTestId('cancel-upload').click();
+	await expect(page.getByText('Upload cancelled. Nothing was kept on the server')).toBeVisible();
+	await expect(page.getByTestId('send-attempt')).toBeEnabled();
+	await expect.poll(async () => (await sql<{ n: number }[]>`select count(*)::int as n from frame_uploads where user_id = ${learnerId}`)[0].n).toBe(0);
+	expect(await attemptsNow()).toBe(before);
+});
