@@ -1,7 +1,7 @@
 // background-drop: the background's measured darkening from reference to lit frame must match the settings' EV change.
 import { formatAmount, formatStops } from '../format';
 import { frameWords, isResult, lookupFrame, requireExif, requirePair, type CriterionResult, type GradeContext } from '../result';
-import { curveCanExplain, settingsDrop } from '../pair/index';
+import { curveCanExplain, MIN_CURVE_SPAN, settingsDrop } from '../pair/index';
 import { resolveFrames, type Criterion } from '../spec';
 
 type BackgroundDrop = Extract<Criterion, { kind: 'background-drop' }>;
@@ -68,7 +68,8 @@ export function gradeBackgroundDrop(c: BackgroundDrop, ctx: GradeContext): Crite
 		return unknown('Parts of the background changed by very different amounts (the scene or the framing moved between frames, or the flash reached the background), so a mentor will compare the frames by eye.');
 	}
 	const passes = { ...withTarget, verdict: 'pass' as const, measured, missing: [] };
-	const editRuledOut = fit !== null && Math.min(fit.misfitAt(expected - c.tolerance), fit.misfitAt(expected + c.tolerance)) >= RULES_OUT;
+	const editRuledOut =
+		fit !== null && (fit.levelSpan < MIN_CURVE_SPAN || Math.min(fit.misfitAt(expected - c.tolerance), fit.misfitAt(expected + c.tolerance)) >= RULES_OUT);
 	if (editRuledOut && plainOff <= Math.min(AGREES, c.tolerance)) {
 		return { ...passes, message: `${found} They agree within ${formatAmount(c.tolerance)} stop, as they should for frames straight from the camera.` };
 	}

@@ -2,7 +2,7 @@
 // 61966-2-1, independent of the engine's) and picture styles of our own making, with known drops.
 import { converter } from 'culori';
 import { describe, expect, it } from 'vitest';
-import { fitSceneDrop } from './comparametric';
+import { fitSceneDrop, MIN_CURVE_SPAN } from './comparametric';
 
 const toSrgb = converter('rgb');
 const toLrgb = converter('lrgb');
@@ -24,6 +24,10 @@ function cells(drop: number, style: (v: number) => number, span = 4, count = 200
 }
 
 const plain = (v: number) => v;
+const cellsSpan = (span: number) => {
+	const { ref, lit } = cells(2, plain, span);
+	return fitSceneDrop(ref, lit, 2)!.levelSpan;
+};
 // a contrast S-curve about mid-grey: 0.6 of a smoothstep blended with the identity (our own picture style)
 const contrasty = (v: number) => 0.4 * v + 0.6 * v * v * (3 - 2 * v);
 
@@ -52,10 +56,12 @@ describe('fitSceneDrop', () => {
 		expect(fit.misfitAt(2)).toBeGreaterThan(2);
 	});
 
-	it('cannot rule out another drop on a background of one level', () => {
+	it('cannot rule out another drop on a background of one level, and says it spans no levels', () => {
 		const { ref, lit } = cells(2, plain, 0);
 		const fit = fitSceneDrop(ref, lit, 2)!;
 		expect(Math.min(fit.misfitAt(1.5), fit.misfitAt(2.5))).toBeLessThan(2);
+		expect(fit.levelSpan).toBeLessThan(MIN_CURVE_SPAN);
+		expect(cellsSpan(4)).toBeGreaterThan(3);
 	});
 
 	it('needs a dozen cells', () => {

@@ -18,6 +18,8 @@ export interface DropFit {
 	/** Mid-tone and end slopes of the fitted picture style against plain sRGB (1 = plain). */
 	midSlope: number;
 	endSlope: number;
+	/** Stops between the 10th and 90th percentile of the reference cells' levels: under MIN_CURVE_SPAN, no curve shows. */
+	levelSpan: number;
 	/** How much worse (1 = as good) the best style explains the cells with the drop held at `drop` than the best fit. */
 	misfitAt(drop: number): number;
 	cells: number;
@@ -26,6 +28,12 @@ export interface DropFit {
 // a residual beyond this (encoded units, about 13 codes) counts as this much: a moved or spilled cell
 const OUTLIER = 0.05;
 const MIN_CELLS = 12;
+/**
+ * A background spanning less than this (stops, 10th to 90th percentile of its levels; the evaluation set's span 0.7–2) shows no curve, so the fit
+ * can rule nothing out or in: callers read such a pair as plain sRGB, trusting a frame straight from the camera.
+ * our choice
+ */
+export const MIN_CURVE_SPAN = 0.4;
 const MAX_CELLS = 320;
 // a cell mean's noise that no fit can remove (JPEG rounding, texture), encoded units: about one code
 const NOISE_FLOOR = 0.004;
@@ -188,7 +196,10 @@ export function fitSceneDrop(ref: readonly number[], lit: readonly number[], set
 	const floor = n * NOISE_FLOOR ** 2;
 	const bestError = best.error;
 	const misfitAt = (drop: number) => (Math.min(...scanned.map((s) => misfit(s.style, s.sceneLog, litCodes, drop))) + floor) / (bestError + floor);
+	const levels = picked.map((i) => Math.log2(Math.max(ref[i], 1e-6)));
+	const levelSpan = levels[Math.floor(0.9 * (n - 1))] - levels[Math.floor(0.1 * (n - 1))];
 	return {
+		levelSpan,
 		misfitAt,
 		drop: best.drop,
 		midSlope: 1 + best.style.mid,

@@ -5,6 +5,7 @@ import { measurePair, type PairMeasure, type PairResult } from './measure';
 
 export type { PairMeasure, PairResult } from './measure';
 export { calibrate, curveCanExplain, CURVE_RANGE } from './calibration';
+export { MIN_CURVE_SPAN } from './comparametric';
 
 // the same domain as a region's colour temperature (analysis/colour.ts): |Duv| ≤ 0.02 inside 1667–25 000 K
 const MAX_DUV = 0.02;

@@ -20,7 +20,7 @@
 import { srgbDecode } from '../../../exposure/index';
 import { CLIP_CODE, cellPlaces, decodeGrid, type Box, type Cells, type PixelReport } from '../../analysis/index';
 import { calibrate, curveCanExplain, type Calibration, type LevelPair } from './calibration';
-import { fitSceneDrop, type DropFit } from './comparametric';
+import { fitSceneDrop, MIN_CURVE_SPAN, type DropFit } from './comparametric';
 import { median, quantile, robustSpread } from './stats';
 
 export interface PairMeasure {
@@ -239,7 +239,10 @@ export function measurePair(
 	// when the background cannot rule out an ambient change half a stop off the settings (an edited frame under a
 	// flat or contrasty style), the curve learned from it may be off by that much too: the lift with it
 	const dropLoose =
-		d !== null && sceneDrop !== null && Math.min(sceneDrop.misfitAt(d - LOOSE_DROP), sceneDrop.misfitAt(d + LOOSE_DROP)) < DROP_PINNED;
+		d !== null &&
+		sceneDrop !== null &&
+		sceneDrop.levelSpan >= MIN_CURVE_SPAN &&
+		Math.min(sceneDrop.misfitAt(d - LOOSE_DROP), sceneDrop.misfitAt(d + LOOSE_DROP)) < DROP_PINNED;
 	const looseDoubt = dropLoose && learned !== null ? (Math.abs(learned) * LOOSE_DROP) / Math.max(Math.abs(d as number), 1) : 0;
 	const curveDoubt =
 		learned !== null && !liftIsLowerBound
