@@ -1,6 +1,6 @@
 // Resumable frame uploads (tus) against the real PostgreSQL: parts, resuming after a cut, exactly one attempt per
 // submission key, no more parts than frames, only the learner's own uploads, and the sweep of what is left behind.
-import { existsSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { mkdir, utimes, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
@@ -129,11 +129,19 @@ describe('resumable frame uploads', () => {
 		const created = await start(mine, 'lit', pair.lit.length, submission);
 		const location = created.headers.get('location')!;
 		const half = Math.floor(pair.lit.length / 2);
-		// the connection drops after half the bytes of this part
+		// the connection drops once half the bytes of this part have reached the server's upload file (waiting for them,
+		// not for a fixed time, so a slow machine cuts at the same place)
+		const file = join(uploadDir(), idOf(location));
+		const arrived = async () => {
+			for (let tries = 0; tries < 400; tries++) {
+				if (existsSync(file) && statSync(file).size >= half) return;
+				await new Promise((r) => setTimeout(r, 25));
+			}
+		};
 		const cut = new ReadableStream<Uint8Array>({
 			start(controller) {
 				controller.enqueue(new Uint8Array(pair.lit.subarray(0, half)));
-				setTimeout(() => controller.error(new Error('connection reset')), 20);
+				void arrived().then(() => controller.error(new Error('connection reset')));
 			}
 		});
 		// (the learner's phone never sees this answer: its connection is gone)
