@@ -19,12 +19,14 @@ const bucket = process.env.STOPWISE_S3_BUCKET || 'stopwise';
 
 await mkdir(dir, { recursive: true });
 const server = new S3rver({ address: '127.0.0.1', port, silent: true, directory: dir, configureBuckets: [{ name: bucket, configs: [] }] });
-try {
-	await server.run();
-} catch (e) {
+// s3rver reports a failed listen (e.g. the port is taken) as an unhandled 'error' event: say it in one line and fail fast
+const failToStart = (e) => {
 	console.error('fake s3:', e.message);
-	process.exit(1); // e.g. the port is taken: fail fast instead of never saying ready
-}
+	process.exit(1);
+};
+process.once('uncaughtException', failToStart);
+await server.run().catch(failToStart);
+process.off('uncaughtException', failToStart);
 console.log(`ready: fake S3 on 127.0.0.1:${port}, bucket ${bucket}, data ${dir}`);
 
 const stop = () => server.close().then(() => process.exit(0));
