@@ -183,6 +183,22 @@ function setPaymentDefaults() {
 	}
 }
 
+/**
+ * Object storage: with STOPWISE_STORAGE=s3 and no STOPWISE_S3_ENDPOINT, the app is pointed at the fake in fakes/s3
+ * (its own port and folder per mode). Local disk stays the default and then the fake starts nothing.
+ */
+function setStorageDefaults() {
+	if (env.STOPWISE_STORAGE !== 's3' || env.STOPWISE_S3_ENDPOINT) return;
+	env.FAKE_S3_PORT ??= { start: '4568', test: '4569', bench: '4570' }[mode];
+	env.FAKE_S3_DIR ??= join(root, '.data', mode === 'start' ? 's3' : `s3-${mode}`);
+	env.STOPWISE_S3_ENDPOINT = `http://127.0.0.1:${env.FAKE_S3_PORT}`;
+	env.STOPWISE_S3_BUCKET ??= 'stopwise';
+	env.STOPWISE_S3_REGION ??= 'us-east-1';
+	// the fake's own fixed credentials
+	env.STOPWISE_S3_ACCESS_KEY_ID ??= 'S3RVER';
+	env.STOPWISE_S3_SECRET_ACCESS_KEY ??= 'S3RVER';
+}
+
 // ---------- app steps ----------
 const tsx = (script, args = []) => must(process.execPath, [join(root, 'node_modules/tsx/dist/cli.mjs'), script, ...args]);
 const bin = (name) => join(root, 'node_modules', '.bin', name);
@@ -278,6 +294,7 @@ async function main() {
 	env.MAILBOX_DIR ??= join(root, '.data', mode === 'start' ? 'mailbox' : `mailbox-${mode}`);
 	if (mode !== 'start') env.FAKE_SMTP_CLEAR ??= '1';
 	setPaymentDefaults();
+	setStorageDefaults();
 	await startFakes();
 	if (mode === 'start') {
 		build();

@@ -2,13 +2,14 @@
 import { and, eq } from 'drizzle-orm';
 import { db } from '../db/index';
 import { attemptFrames, attempts } from '../db/schema';
-import { fileStore } from '../storage/index';
+import { fileStore, type StoredStream } from '../storage/index';
 import { canSeeAttempt, type Viewer } from './access';
 
 export const FILE_VARIANTS = ['original', 'large', 'thumb'] as const;
 export type FileVariant = (typeof FILE_VARIANTS)[number];
 
-export type FileAnswer = { ok: true; data: Buffer; type: string; filename: string } | { ok: false; status: 401 | 404 };
+/** A found file comes as a stream (`file.body`, `file.size`): the route passes it on without holding it in memory. */
+export type FileAnswer = { ok: true; file: StoredStream; type: string; filename: string } | { ok: false; status: 401 | 404 };
 
 /** The URL of a frame's file (frame names may hold spaces). */
 export function frameFileHref(attemptId: string, frameName: string, variant: FileVariant): string {
@@ -27,12 +28,12 @@ export async function readAttemptFile(viewer: Viewer | null, attemptId: string, 
 	// someone else's attempt looks exactly like a missing one
 	if (!row || !canSeeAttempt(viewer, row.ownerId)) return { ok: false, status: 404 };
 	const key = variant === 'original' ? row.frame.originalKey : variant === 'large' ? row.frame.largeKey : row.frame.thumbKey;
-	const data = await fileStore().get(key);
-	if (!data) return { ok: false, status: 404 };
+	const file = await fileStore().open(key);
+	if (!file) return { ok: false, status: 404 };
 	const extension = key.slice(key.lastIndexOf('.') + 1);
 	return {
 		ok: true,
-		data,
+		file,
 		type: variant === 'original' ? row.frame.mime : 'image/webp',
 		filename: `${frameName.replace(/[^A-Za-z0-9_-]/g, '_')}-${variant}.${extension}`
 	};

@@ -4,7 +4,7 @@ import sharp from 'sharp';
 import { eq } from 'drizzle-orm';
 import { db } from '../db';
 import { lessonImages } from '../db/schema';
-import { fileStore } from '../storage';
+import { fileStore, type StoredStream } from '../storage';
 
 export const MAX_IMAGE_BYTES = 15 * 1024 * 1024;
 // wide enough for a sharp full-width figure on a high-density screen, small enough to load in the field
@@ -56,11 +56,11 @@ export async function storeLessonImage(bytes: Uint8Array, alt: string, authorId:
 	return { ok: true, id, url: lessonImageUrl(id), markdown: imageMarkdown(id, alt), width: webp.info.width, height: webp.info.height };
 }
 
-/** The stored WebP for `<id>.webp`, or null for anything that is not one of our images. */
-export async function readLessonImage(file: string): Promise<Buffer | null> {
+/** The stored WebP for `<id>.webp` as a stream, or null for anything that is not one of our images. */
+export async function readLessonImage(file: string): Promise<StoredStream | null> {
 	const id = file.endsWith('.webp') ? file.slice(0, -'.webp'.length) : '';
 	if (!ID_PATTERN.test(id)) return null;
 	const row = await db.query.lessonImages.findFirst({ where: eq(lessonImages.id, id) });
 	if (!row) return null;
-	return fileStore().get(row.storageKey);
+	return fileStore().open(row.storageKey);
 }

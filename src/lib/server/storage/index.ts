@@ -1,18 +1,25 @@
-// The app's file store: local disk under STOPWISE_DATA_DIR (default .data/files), behind the FileStore interface.
+// The app's file store, chosen by STOPWISE_STORAGE: local disk under STOPWISE_DATA_DIR (default .data/files) or an S3 bucket.
 import { join } from 'node:path';
 import { createLocalDiskStore } from './local-disk';
+import { createS3Store } from './s3';
+import { storageSettings } from './settings';
 import type { FileStore } from './store';
 
-export { checkKey, type FileStore } from './store';
+export { checkKey, type FileStore, type StoredStream } from './store';
 export { createLocalDiskStore } from './local-disk';
+export { createS3Store } from './s3';
+export { storageSettings, type StorageSettings } from './settings';
 
 export const dataDir = process.env.STOPWISE_DATA_DIR ?? join(process.cwd(), '.data', 'files');
 
 let current: FileStore | undefined;
 
-/** The store every module uses; an object store only has to implement FileStore and be set here. */
+/** The store every module uses, made from the environment on first use (a bad setting throws, naming it). */
 export function fileStore(): FileStore {
-	current ??= createLocalDiskStore(dataDir);
+	if (!current) {
+		const settings = storageSettings(process.env);
+		current = settings.kind === 's3' ? createS3Store(settings.s3) : createLocalDiskStore(dataDir);
+	}
 	return current;
 }
 

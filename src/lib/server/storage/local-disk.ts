@@ -1,7 +1,8 @@
 // FileStore on the local disk under one root folder (STOPWISE_DATA_DIR); writes go to a temp name, then rename.
 import { randomBytes } from 'node:crypto';
-import { mkdir, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
+import { mkdir, open, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
+import { Readable } from 'node:stream';
 import { checkKey, type FileStore } from './store';
 
 export function createLocalDiskStore(root: string): FileStore {
@@ -27,6 +28,26 @@ export function createLocalDiskStore(root: string): FileStore {
 				return await readFile(pathOf(key));
 			} catch (error) {
 				if ((error as NodeJS.ErrnoException).code === 'ENOENT') return null;
+				throw error;
+			}
+		},
+		async open(key) {
+			// the size and the stream come from one open file, so a put renamed over it meanwhile cannot mix them
+			const handle = await open(pathOf(key), 'r').catch((error: NodeJS.ErrnoException) => {
+				if (error.code === 'ENOENT' || error.code === 'EISDIR') return null;
+				throw error;
+			});
+			if (!handle) return null;
+			try {
+				const info = await handle.stat();
+				if (!info.isFile()) {
+					await handle.close();
+					return null;
+				}
+				const stream = handle.createReadStream({ autoClose: true });
+				return { body: Readable.toWeb(stream) as ReadableStream<Uint8Array>, size: info.size };
+			} catch (error) {
+				await handle.close();
 				throw error;
 			}
 		},

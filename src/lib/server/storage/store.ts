@@ -1,4 +1,4 @@
-// The file store interface: what attempts need from any backend (local disk today, an object store later).
+// The file store interface: what attempts and lesson images need from any backend (local disk or an S3-compatible bucket).
 
 /** Keys are slash-separated paths of safe segments, e.g. `attempts/<id>/0-original.jpg`. */
 export interface FileStore {
@@ -6,6 +6,8 @@ export interface FileStore {
 	put(key: string, data: Uint8Array): Promise<void>;
 	/** The bytes, or null when nothing is stored under `key`. */
 	get(key: string): Promise<Buffer | null>;
+	/** The bytes as a stream with their length, for serving without holding the file in memory; null when missing. */
+	open(key: string): Promise<StoredStream | null>;
 	/** Removes one key; removing a missing key is not an error. */
 	delete(key: string): Promise<void>;
 	/** Removes every key under `prefix/` (an attempt's folder); a missing prefix is not an error. */
@@ -15,6 +17,12 @@ export interface FileStore {
 	 * written, for the sweep of files left by a crash; a missing prefix lists nothing.
 	 */
 	listFolders(prefix: string): Promise<{ name: string; modifiedAt: Date }[]>;
+}
+
+/** A stored value being read: read `body` once, to the end or cancelled. */
+export interface StoredStream {
+	body: ReadableStream<Uint8Array>;
+	size: number;
 }
 
 const SEGMENT = /^[A-Za-z0-9][A-Za-z0-9._-]{0,127}$/;

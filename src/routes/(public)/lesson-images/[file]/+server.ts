@@ -4,12 +4,12 @@ import { readLessonImage } from '$lib/server/authoring/images';
 import type { RequestHandler } from './$types';
 
 export const GET: RequestHandler = async ({ params }) => {
-	const bytes = await readLessonImage(params.file);
-	if (!bytes) error(404, { message: 'There is no such image.' });
-	return new Response(new Uint8Array(bytes), {
+	const image = await readLessonImage(params.file);
+	if (!image) error(404, { message: 'There is no such image.' });
+	return new Response(image.body, {
 		headers: {
 			'content-type': 'image/webp',
-			'content-length': String(bytes.byteLength),
+			'content-length': String(image.size),
 			// an id is never reused for other bytes
 			'cache-control': 'public, max-age=31536000, immutable'
 		}

@@ -11,10 +11,11 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 		});
 	}
 	const original = params.variant === 'original';
-	return new Response(new Uint8Array(file.data), {
+	// streamed from the store as the client reads it: a 40 MB original is never held whole in memory
+	return new Response(file.file.body, {
 		headers: {
 			'content-type': file.type,
-			'content-length': String(file.data.length),
+			'content-length': String(file.file.size),
 			// private: a shared cache must never hand one learner's photo to another person
 			'cache-control': 'private, max-age=3600',
 			'content-disposition': `${original ? 'attachment' : 'inline'}; filename="${file.filename}"`
