@@ -14,12 +14,12 @@ export default {
 					700: '#353942',
 					600: '#4a4f5a'
 				},
-				ink: { DEFAULT: '#e6e4df', muted: '#a9a8a3', faint: '#7d7c78' },
+				ink: { DEFAULT: '#e6e4df', muted: '#a9a8a3', faint: '#959490' },
 				// 18 % reflectance rendered in sRGB: the neutral behind every photo
 				midgrey: '#767676',
 				flash: { DEFAULT: '#f0a040', soft: '#f6c27f', deep: '#b86d12' },
 				ambient: { DEFAULT: '#3d74e0', soft: '#8fb0f0', deep: '#1f4fae' },
-				pass: '#5fb36b',
+				pass: '#69bd74',
 				fail: '#e0645a',
 				review: '#c9a63a'
 			},
