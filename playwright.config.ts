@@ -22,7 +22,8 @@ export default defineConfig({
 	},
 	projects: [
 		{ name: 'desktop', use: { ...devices['Desktop Chrome'] }, testIgnore: /phone(-[a-z-]+)?\.spec\.ts/ },
-		{ name: 'phone', use: { ...devices['Pixel 7'] }, testMatch: /phone(-[a-z-]+)?\.spec\.ts/ }
+		// the accessibility check runs in both projects: every page on a desktop and on a phone
+		{ name: 'phone', use: { ...devices['Pixel 7'] }, testMatch: /(phone(-[a-z-]+)?|accessibility)\.spec\.ts/ }
 	],
 	webServer: {
 		command: 'node build',

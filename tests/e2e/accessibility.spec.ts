@@ -1,0 +1,124 @@
+// Every main page, as a visitor and as each role, on a desktop and (in the phone project) on a phone, through axe-core with the
+// WCAG 2.0/2.1/2.2 A and AA rules: no serious or critical violation. What axe cannot see (keyboard journeys, flashing) is tested elsewhere.
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test, type Browser, type Page } from '@playwright/test';
+import { randomUUID } from 'node:crypto';
+import { existsSync, mkdirSync } from 'node:fs';
+import { rm } from 'node:fs/promises';
+import { join } from 'node:path';
+import postgres from 'postgres';
+import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
+import {
+	adminScreens,
+	authorScreens,
+	COURSE,
+	demoAccount,
+	LESSON,
+	learnerScreens,
+	mentorScreens,
+	signInWith,
+	visitorScreens,
+	type Role,
+	type Screen
+} from './support/screens';
+
+const TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:54329/stopwise', { max: 2, onnotice: () => {} });
+// signed-in sessions, one per role for the whole run (test-results is emptied at the start of each run)
+const STATES = join('test-results', 'accessibility-sessions');
+
+test.describe.configure({ timeout: 120_000 });
+
+/** Opens the page and (softly, so every page of a walk reports) fails with a readable list of every serious or critical violation. */
+async function audit(page: Page, screen: Screen) {
+	await page.goto(screen.path);
+	if (screen.heading) await expect(page.getByRole('heading', { level: 1 })).toHaveText(screen.heading);
+	const { violations } = await new AxeBuilder({ page }).withTags(TAGS).analyze();
+	const grave = violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+	const report = grave
+		.map((v) => `${v.id} (${v.impact}): ${v.help}\n${v.nodes.slice(0, 6).map((n) => `    ${n.target.join(' ')}  ${n.failureSummary?.split('\n').slice(1).join(' ') ?? ''}`).join('\n')}${v.nodes.length > 6 ? `\n    … and ${v.nodes.length - 6} more` : ''}`)
+		.join('\n');
+	expect.soft(grave.length, `${screen.path}: ${grave.length} serious or critical violations\n${report}`).toBe(0);
+}
+
+/** The saved session of a demo role, signing in once per run. */
+async function sessionOf(browser: Browser, role: Role): Promise<string> {
+	const file = join(STATES, `${role}.json`);
+	if (existsSync(file)) return file;
+	mkdirSync(STATES, { recursive: true });
+	// storageState: undefined, or the describe's own (not yet written) session would be loaded
+	const context = await browser.newContext({ baseURL: test.info().project.use.baseURL, storageState: undefined });
+	const { email, password } = demoAccount(role);
+	await signInWith(await context.newPage(), email, password);
+	await context.storageState({ path: file });
+	await context.close();
+	return file;
+}
+
+/** Walks the screens in one page, one load each. */
+async function walk(page: Page, screens: Screen[]) {
+	for (const screen of screens) await test.step(screen.path, () => audit(page, screen));
+}
+
+test('every page a visitor sees', async ({ page }) => walk(page, visitorScreens));
+
+test.describe('as a learner', () => {
+	test.use({ storageState: join(STATES, 'learner.json') });
+	let learnerId = '';
+	let courseId = 0;
+	let attemptHref = '';
+	const removeAttempts = async () => {
+		const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
+		const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
+		await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
+	};
+
+	test.beforeAll(async ({ browser }) => {
+		[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${demoAccount('learner').email}`;
+		[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
+		// the demo learner is not enrolled (payments are another feature): enrol directly, with one Attempt for the verdict page
+		await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
+		await removeAttempts();
+		const context = await browser.newContext({ storageState: await sessionOf(browser, 'learner'), baseURL: test.info().project.use.baseURL });
+		const reference = await makeFrame({ width: 600, height: 400, subject: { stops: 0 }, background: { stops: 0.5 }, exif: { ...REFERENCE_EXIF } });
+		const lit = await makeFrame({ width: 600, height: 400, subject: { stops: 0 }, background: { stops: 0.5 - Math.log2(3) }, exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash: 0x19 } });
+		const answer = await context.request.post('/api/v1/attempts', {
+			headers: { origin: new URL(test.info().project.use.baseURL!).origin },
+			multipart: {
+				assignment: LESSON,
+				submissionKey: randomUUID(),
+				subjectBox: '0.3,0.25,0.4,0.5',
+				lightPlan: '',
+				'frame:reference': { name: 'reference.jpg', mimeType: 'image/jpeg', buffer: reference },
+				'frame:lit': { name: 'lit.jpg', mimeType: 'image/jpeg', buffer: lit }
+			}
+		});
+		expect(answer.status()).toBe(201);
+		attemptHref = ((await answer.json()) as { href: string }).href;
+		await context.close();
+	});
+
+	test.afterAll(async () => {
+		await removeAttempts();
+		await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
+	});
+
+	test('every learner page', async ({ page }) => walk(page, learnerScreens(attemptHref)));
+});
+
+for (const role of ['mentor', 'author', 'admin'] as const) {
+	test.describe(`as ${role === 'admin' ? 'an' : 'a'} ${role}`, () => {
+		test.use({ storageState: join(STATES, `${role}.json`) });
+		test.beforeAll(async ({ browser }) => {
+			await sessionOf(browser, role);
+		});
+		test(`every ${role} page`, async ({ page }) => {
+			const screens = role === 'mentor' ? mentorScreens : role === 'author' ? await authorScreens(sql) : adminScreens;
+			await walk(page, screens);
+		});
+	});
+}
+
+test.afterAll(async () => {
+	await sql.end();
+});
