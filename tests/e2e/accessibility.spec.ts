@@ -60,65 +60,63 @@ async function walk(page: Page, screens: Screen[]) {
 	for (const screen of screens) await test.step(screen.path, () => audit(page, screen));
 }
 
-test('every page a visitor sees', async ({ page }) => walk(page, visitorScreens));
+// the demo learner, enrolled directly (payments are another feature), with one Attempt for the verdict and review pages
+let learnerId = '';
+let courseId = 0;
+let attemptHref = '';
+async function removeAttempts() {
+	const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
+	const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
+	await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
+}
 
-test.describe('as a learner', () => {
-	test.use({ storageState: join(STATES, 'learner.json') });
-	let learnerId = '';
-	let courseId = 0;
-	let attemptHref = '';
-	const removeAttempts = async () => {
-		const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
-		const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
-		await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
-	};
-
-	test.beforeAll(async ({ browser }) => {
-		[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${demoAccount('learner').email}`;
-		[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
-		// the demo learner is not enrolled (payments are another feature): enrol directly, with one Attempt for the verdict page
-		await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
-		await removeAttempts();
-		const context = await browser.newContext({ storageState: await sessionOf(browser, 'learner'), baseURL: test.info().project.use.baseURL });
-		const reference = await makeFrame({ width: 600, height: 400, subject: { stops: 0 }, background: { stops: 0.5 }, exif: { ...REFERENCE_EXIF } });
-		const lit = await makeFrame({ width: 600, height: 400, subject: { stops: 0 }, background: { stops: 0.5 - Math.log2(3) }, exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash: 0x19 } });
-		const answer = await context.request.post('/api/v1/attempts', {
-			headers: { origin: new URL(test.info().project.use.baseURL!).origin },
-			multipart: {
-				assignment: LESSON,
-				submissionKey: randomUUID(),
-				subjectBox: '0.3,0.25,0.4,0.5',
-				lightPlan: '',
-				'frame:reference': { name: 'reference.jpg', mimeType: 'image/jpeg', buffer: reference },
-				'frame:lit': { name: 'lit.jpg', mimeType: 'image/jpeg', buffer: lit }
-			}
-		});
-		expect(answer.status()).toBe(201);
-		attemptHref = ((await answer.json()) as { href: string }).href;
-		await context.close();
+test.beforeAll(async ({ browser }) => {
+	[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${demoAccount('learner').email}`;
+	[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
+	await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
+	await removeAttempts();
+	const baseURL = test.info().project.use.baseURL!;
+	const context = await browser.newContext({ storageState: await sessionOf(browser, 'learner'), baseURL });
+	const reference = await makeFrame({ width: 600, height: 400, subject: { stops: 0 }, background: { stops: 0.5 }, exif: { ...REFERENCE_EXIF } });
+	const lit = await makeFrame({ width: 600, height: 400, subject: { stops: 0 }, background: { stops: 0.5 - Math.log2(3) }, exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash: 0x19 } });
+	const answer = await context.request.post('/api/v1/attempts', {
+		headers: { origin: new URL(baseURL).origin },
+		multipart: {
+			assignment: LESSON,
+			submissionKey: randomUUID(),
+			subjectBox: '0.3,0.25,0.4,0.5',
+			lightPlan: '',
+			'frame:reference': { name: 'reference.jpg', mimeType: 'image/jpeg', buffer: reference },
+			'frame:lit': { name: 'lit.jpg', mimeType: 'image/jpeg', buffer: lit }
+		}
 	});
-
-	test.afterAll(async () => {
-		await removeAttempts();
-		await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
-	});
-
-	test('every learner page', async ({ page }) => walk(page, learnerScreens(attemptHref)));
+	expect(answer.status()).toBe(201);
+	attemptHref = ((await answer.json()) as { href: string }).href;
+	await context.close();
 });
 
-for (const role of ['mentor', 'author', 'admin'] as const) {
+test.afterAll(async () => {
+	await removeAttempts();
+	await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
+	await sql.end();
+});
+
+test('every page a visitor sees', async ({ page }) => walk(page, visitorScreens));
+
+for (const role of ['learner', 'mentor', 'author', 'admin'] as const) {
 	test.describe(`as ${role === 'admin' ? 'an' : 'a'} ${role}`, () => {
 		test.use({ storageState: join(STATES, `${role}.json`) });
 		test.beforeAll(async ({ browser }) => {
 			await sessionOf(browser, role);
 		});
 		test(`every ${role} page`, async ({ page }) => {
-			const screens = role === 'mentor' ? mentorScreens : role === 'author' ? await authorScreens(sql) : adminScreens;
-			await walk(page, screens);
+			const screens = {
+				learner: () => learnerScreens(attemptHref),
+				mentor: () => [...mentorScreens, { name: 'mentor-attempt', path: attemptHref.replace('/attempts/', '/mentor/attempts/') }],
+				author: () => authorScreens(sql),
+				admin: () => adminScreens
+			}[role];
+			await walk(page, await screens());
 		});
 	});
 }
-
-test.afterAll(async () => {
-	await sql.end();
-});

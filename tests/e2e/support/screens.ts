@@ -30,7 +30,10 @@ export const visitorScreens: Screen[] = [
 	{ name: 'sign-in-with-reason', path: `/courses/${COURSE}/inverse-square` },
 	{ name: 'sign-in', path: '/signin' },
 	{ name: 'sign-up', path: '/signup' },
-	{ name: 'reset', path: '/reset' }
+	{ name: 'reset', path: '/reset' },
+	{ name: 'sign-up-sent', path: '/signup/sent' },
+	{ name: 'verify-without-link', path: '/verify' },
+	{ name: 'instructor', path: '/instructors/jun-halvorsen' }
 ];
 
 /** The learner's pages; `attemptHref` adds the verdict page of one of their Attempts. */
@@ -62,7 +65,9 @@ export async function authorScreens(sql: Sql): Promise<Screen[]> {
 		{ name: 'author-tree', path: '/author', heading: /^Lessons$/ },
 		{ name: 'author-lesson', path: `/author/lessons/${lesson.id}`, heading: /^Edit lesson$/ },
 		{ name: 'author-history', path: `/author/lessons/${lesson.id}/history`, heading: new RegExp(`^History of “${escaped}”$`) },
-		{ name: 'author-assignment', path: `/author/assignments/${assignment.id}`, heading: /^Assignment$/ }
+		{ name: 'author-assignment', path: `/author/assignments/${assignment.id}`, heading: /^Assignment$/ },
+		{ name: 'author-new-lesson', path: '/author/lessons/new' },
+		{ name: 'author-new-assignment', path: `/author/lessons/${lesson.id}/assignments/new` }
 	];
 }
 
@@ -72,5 +77,6 @@ export const adminScreens: Screen[] = [
 	{ name: 'admin-payments', path: '/admin/payments', heading: /^Payments$/ },
 	{ name: 'admin-coupons', path: '/admin/coupons', heading: /^Coupons$/ },
 	{ name: 'admin-audit', path: '/admin/audit', heading: /^Audit log$/ },
-	{ name: 'admin-mailbox', path: '/admin/mailbox', heading: /^Mailbox$/ }
+	{ name: 'admin-mailbox', path: '/admin/mailbox', heading: /^Mailbox$/ },
+	{ name: 'admin-coupon', path: '/admin/coupons/HARBOR20' }
 ];
