@@ -104,7 +104,7 @@ test.afterAll(async () => {
 test('every page a visitor sees', async ({ page }) => walk(page, visitorScreens));
 
 for (const role of ['learner', 'mentor', 'author', 'admin'] as const) {
-	test.describe(`as ${role === 'admin' ? 'an' : 'a'} ${role}`, () => {
+	test.describe(`as ${role === 'learner' || role === 'mentor' ? 'a' : 'an'} ${role}`, () => {
 		test.use({ storageState: join(STATES, `${role}.json`) });
 		test.beforeAll(async ({ browser }) => {
 			await sessionOf(browser, role);
