@@ -43,24 +43,12 @@ function detectIsoBmff(bytes: Uint8Array): FileType | null {
 // TIFF 6.0 and DNG 1.4 tags in the first directory that mark a camera's raw file rather than a plain TIFF
 const TAG_NEW_SUBFILE_TYPE = 254;
 const TAG_PHOTOMETRIC = 262;
-const TAG_MAKE = 271;
 const TAG_SUB_IFDS = 330;
 const TAG_DNG_VERSION = 50706;
 // PhotometricInterpretation CFA (TIFF/EP, 32803) and LinearRaw (DNG, 34892)
 const RAW_PHOTOMETRIC = new Set([32803, 34892]);
-// the usual file name of a TIFF-based raw, from the Make the camera writes
-const RAW_BY_MAKE: [RegExp, string][] = [
-	[/^nikon/i, 'NEF'],
-	[/^sony/i, 'ARW'],
-	[/^pentax|^ricoh/i, 'PEF'],
-	[/^samsung/i, 'SRW'],
-	[/^canon/i, 'CR2'],
-	[/^leica/i, 'RWL'],
-	[/^hasselblad/i, '3FR'],
-	[/^phase one/i, 'IIQ']
-];
 
-/** Reads IFD0 of a TIFF (bounds-checked): whether its tags say raw, and the raw format's usual name. */
+/** Reads IFD0 of a TIFF (bounds-checked): whether its tags say raw, and whether it is a DNG (the one format its tags name). */
 function tiffRawFormat(bytes: Uint8Array): { raw: boolean; format: string | null } {
 	const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 	const le = bytes[0] === 0x49;
@@ -71,7 +59,6 @@ function tiffRawFormat(bytes: Uint8Array): { raw: boolean; format: string | null
 	if (ifd < 8 || count === 0 || ifd + 2 + count * 12 > bytes.length) return { raw: false, format: null };
 	let raw = false;
 	let dng = false;
-	let make = '';
 	for (let i = 0; i < count; i++) {
 		const entry = ifd + 2 + i * 12;
 		const tag = u16(entry);
@@ -81,24 +68,19 @@ function tiffRawFormat(bytes: Uint8Array): { raw: boolean; format: string | null
 		else if (tag === TAG_SUB_IFDS) raw = true;
 		else if (tag === TAG_NEW_SUBFILE_TYPE && value === 1) raw = true; // a reduced-size image first: the raw data lies further on
 		else if (tag === TAG_PHOTOMETRIC && RAW_PHOTOMETRIC.has(value)) raw = true;
-		else if (tag === TAG_MAKE && type === 2) {
-			const length = u32(entry + 4);
-			const at = length <= 4 ? entry + 8 : u32(entry + 8);
-			if (at + length <= bytes.length) make = ascii(bytes, at, Math.min(length, 32));
-		}
 	}
-	if (dng) return { raw, format: 'DNG' };
-	return { raw, format: raw ? (RAW_BY_MAKE.find(([re]) => re.test(make))?.[1] ?? null) : null };
+	// other TIFF-based raw formats carry no tag naming them: they are labelled just "raw"
+	return { raw, format: dng ? 'DNG' : null };
 }
 
 function detectTiffFamily(bytes: Uint8Array): FileType | null {
 	const head = ascii(bytes, 0, 4);
-	// Olympus ORF and Panasonic RW2 alter the TIFF magic number
+	// ORF and RW2 files alter the TIFF magic number
 	if (head === 'IIRO' || head === 'IIRS' || head === 'MMOR') return rawType('ORF');
 	if (head === 'IIU\0') return rawType('RW2');
 	if (head !== 'II*\0' && head !== 'MM\0*') return null;
 	if (ascii(bytes, 8, 2) === 'CR') return rawType('CR2');
-	// NEF, ARW, DNG, PEF… are TIFF containers: the first directory's tags tell them from a plain TIFF
+	// many raw formats, DNG among them, are TIFF containers: the first directory's tags tell them from a plain TIFF
 	const { raw, format } = tiffRawFormat(bytes);
 	return raw ? rawType(format) : sharpType('tiff', 'TIFF');
 }
