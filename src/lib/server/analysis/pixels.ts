@@ -126,18 +126,30 @@ const LUMA_B = Int32Array.from({ length: 256 }, (_, v) => Math.round(W_B * v * 6
 
 // Linear 16-bit value to the analysis's linear scale (mid-grey 0.18), to its 8-bit sRGB code for the histogram, and the
 // clip and crush thresholds: a raw file's levels on the same footing as a JPEG's
-let LINEAR_16: Float64Array | null = null;
-let CODE_16: Uint8Array | null = null;
 const CLIP_16 = Math.round(RAW_CLIP_SHARE * 65535);
 // every channel at or below the level an 8-bit sRGB file calls crushed
 const CRUSH_16 = Math.floor((srgbDecode(CRUSH_CODE / 255) / RAW_TO_SCENE_GAIN) * 65535);
 
-function linearTables(): { linear: Float64Array; code: Uint8Array } {
-	if (!LINEAR_16 || !CODE_16) {
-		LINEAR_16 = Float64Array.from({ length: 65536 }, (_, v) => (v / 65535) * RAW_TO_SCENE_GAIN);
-		CODE_16 = Uint8Array.from(LINEAR_16, (v) => Math.round(255 * srgbEncode(Math.min(1, v))));
+/** How a sample value reads: its linear light, its 8-bit sRGB code (for the histogram), where clipping and crushing start. */
+interface SampleScale {
+	linear: Float64Array;
+	code: ArrayLike<number>;
+	clip: number;
+	crush: number;
+}
+
+const JPEG_SCALE: SampleScale = { linear: LINEAR, code: Uint8Array.from({ length: 256 }, (_, v) => v), clip: CLIP_CODE, crush: CRUSH_CODE };
+
+let RAW_SCALE: SampleScale | null = null;
+
+/** A raw file's linear 16-bit samples, tabulated on first use (a JPEG-only server never builds them). */
+function rawScale(): SampleScale {
+	if (!RAW_SCALE) {
+		const linear = Float64Array.from({ length: 65536 }, (_, v) => (v / 65535) * RAW_TO_SCENE_GAIN);
+		const code = Uint8Array.from(linear, (v) => Math.round(255 * srgbEncode(Math.min(1, v))));
+		RAW_SCALE = { linear, code, clip: CLIP_16, crush: CRUSH_16 };
 	}
-	return { linear: LINEAR_16, code: CODE_16 };
+	return RAW_SCALE;
 }
 
 /** Runs of a row that lie in one cell and one region: [start x, end x, cell column, region] flattened. */
@@ -199,8 +211,8 @@ function startPass(image: RgbImage, subjectBox: Box): Pass {
  * region, summed in locals: the hot loop of grading, about twice as fast as adding every pixel to the arrays.
  */
 function addRows(pass: Pass, yFrom: number, yTo: number): void {
-	if (pass.image.linear) return addLinearRows(pass, yFrom, yTo);
 	const { data, width, height, channels } = pass.image;
+	const { linear, code, clip, crush } = pass.image.linear ? rawScale() : JPEG_SCALE;
 	const { y0, y1 } = pass.bounds;
 	const { cols, rows, histogram, cells, regions } = pass;
 	for (let y = yFrom; y < yTo; y++) {
@@ -221,64 +233,11 @@ function addRows(pass: Pass, yFrom: number, yTo: number): void {
 				const r = data[i];
 				const g = data[i + 1];
 				const b = data[i + 2];
-				// BT.709 luma: the same weights applied to the encoded values, as camera histograms show
-				histogram[(LUMA_R[r] + LUMA_G[g] + LUMA_B[b] + 32768) >> 16]++;
-				if (r >= CLIP_CODE || g >= CLIP_CODE || b >= CLIP_CODE) clipped++;
-				else if (r <= CRUSH_CODE && g <= CRUSH_CODE && b <= CRUSH_CODE) crushed++;
-				else {
-					sr += LINEAR[r];
-					sg += LINEAR[g];
-					sb += LINEAR[b];
-					usable++;
-				}
-			}
-			const count = spans[s + 1] - spans[s];
-			cells.total[c] += count;
-			cells.clipped[c] += clipped;
-			cells.crushed[c] += crushed;
-			cells.usable[c] += usable;
-			cells.r[c] += sr;
-			cells.g[c] += sg;
-			cells.b[c] += sb;
-			regions.total[k] += count;
-			regions.clipped[k] += clipped;
-			regions.crushed[k] += crushed;
-			regions.usable[k] += usable;
-			regions.r[k] += sr;
-			regions.g[k] += sg;
-			regions.b[k] += sb;
-		}
-	}
-}
-
-/** addRows for a raw file's linear 16-bit data: the same sums, with the values taken as linear light as they are. */
-function addLinearRows(pass: Pass, yFrom: number, yTo: number): void {
-	const { data, width, height, channels } = pass.image;
-	const { linear, code } = linearTables();
-	const { y0, y1 } = pass.bounds;
-	const { cols, rows, histogram, cells, regions } = pass;
-	for (let y = yFrom; y < yTo; y++) {
-		const spans = y >= y0 && y < y1 ? pass.across : pass.outside;
-		const rowBase = Math.floor((y * rows) / height) * cols;
-		const rowStart = y * width * channels;
-		for (let s = 0; s < spans.length; s += 4) {
-			const c = rowBase + spans[s + 2];
-			const k = spans[s + 3];
-			let sr = 0;
-			let sg = 0;
-			let sb = 0;
-			let usable = 0;
-			let clipped = 0;
-			let crushed = 0;
-			const end = rowStart + spans[s + 1] * channels;
-			for (let i = rowStart + spans[s] * channels; i < end; i += channels) {
-				const r = data[i];
-				const g = data[i + 1];
-				const b = data[i + 2];
-				// the histogram shows the frame as an sRGB rendering of the same levels would
+				// BT.709 luma: the same weights applied to the encoded values, as camera histograms show (a raw file's
+				// levels as an sRGB rendering of them would show)
 				histogram[(LUMA_R[code[r]] + LUMA_G[code[g]] + LUMA_B[code[b]] + 32768) >> 16]++;
-				if (r >= CLIP_16 || g >= CLIP_16 || b >= CLIP_16) clipped++;
-				else if (r <= CRUSH_16 && g <= CRUSH_16 && b <= CRUSH_16) crushed++;
+				if (r >= clip || g >= clip || b >= clip) clipped++;
+				else if (r <= crush && g <= crush && b <= crush) crushed++;
 				else {
 					sr += linear[r];
 					sg += linear[g];
