@@ -1,23 +1,12 @@
 // A learner uploads a pair → sees the verdict → a mentor pins a comment and overrides → the learner reads the critique and gets the e-mail.
 import { expect, test, type Browser, type Page } from '@playwright/test';
-import { readFileSync } from 'node:fs';
-import { rm } from 'node:fs/promises';
-import { join } from 'node:path';
-import postgres from 'postgres';
-import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
+import { enrolDemoLearner, framePair } from './support/enrolled-learner';
+import { COURSE, demoAccount, LESSON, type Role } from './support/screens';
 
-type Demo = { role: string; email: string; password: string };
-const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
-const account = (role: string) => demo.find((d) => d.role === role)!;
+enrolDemoLearner();
 
-const COURSE = 'daylight-flash-for-action';
-const LESSON = 'off-the-axis';
-const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:54329/stopwise', { max: 2, onnotice: () => {} });
-let learnerId = '';
-let courseId = 0;
-
-async function signIn(page: Page, role: string, redirectTo = '/') {
-	const { email, password } = account(role);
+async function signIn(page: Page, role: Role, redirectTo = '/') {
+	const { email, password } = demoAccount(role);
 	await page.goto(`/signin?redirectTo=${encodeURIComponent(redirectTo)}`);
 	await page.getByLabel('E-mail', { exact: true }).fill(email);
 	await page.getByLabel('Password', { exact: true }).fill(password);
@@ -25,45 +14,12 @@ async function signIn(page: Page, role: string, redirectTo = '/') {
 	await expect(page).toHaveURL(new RegExp(`${redirectTo.replace(/[?]/g, '\\?')}$`));
 }
 
-async function asRole(browser: Browser, role: string, path: string) {
+async function asRole(browser: Browser, role: Role, path: string) {
 	const context = await browser.newContext();
 	const page = await context.newPage();
 	await signIn(page, role, path);
 	return { page, close: () => context.close() };
 }
-
-/** A pair for "Off the axis", made here with sharp and Exif: reference 1/500 s, lit 1/1500 s (≈1.6 stops under), flash fired. */
-async function framePair() {
-	const reference = await makeFrame({ width: 900, height: 600, subject: { stops: 0 }, background: { stops: 0.5 }, exif: { ...REFERENCE_EXIF } });
-	const lit = await makeFrame({
-		width: 900,
-		height: 600,
-		subject: { stops: 0 },
-		background: { stops: 0.5 - Math.log2(3) },
-		exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash: 0x19 }
-	});
-	return { reference, lit };
-}
-
-async function removeAttempts() {
-	const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
-	const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
-	await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
-}
-
-test.beforeAll(async () => {
-	[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${account('learner').email}`;
-	[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
-	// the demo learner is not enrolled (payments are another feature): enrol directly for this test
-	await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
-	await removeAttempts();
-});
-
-test.afterAll(async () => {
-	await removeAttempts();
-	await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
-	await sql.end();
-});
 
 test('upload → verdict → mentor pin and override → critique and e-mail', async ({ page, browser }) => {
 	test.setTimeout(120_000);
@@ -154,7 +110,7 @@ test('upload → verdict → mentor pin and override → critique and e-mail', a
 	const admin = await asRole(browser, 'admin', '/admin/mailbox');
 	await admin.page
 		.getByRole('listitem')
-		.filter({ hasText: account('learner').email })
+		.filter({ hasText: demoAccount('learner').email })
 		.filter({ hasText: "Your mentor's critique: Off the axis" })
 		.first()
 		.getByRole('link')

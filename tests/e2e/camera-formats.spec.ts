@@ -1,40 +1,13 @@
 // A learner sends a phone's HEIC as the reference and a camera's raw (DNG) as the lit frame: both decoded, measured and graded.
 import { expect, test } from '@playwright/test';
-import { readFileSync } from 'node:fs';
-import { rm } from 'node:fs/promises';
-import { join } from 'node:path';
-import postgres from 'postgres';
 import { makeDng } from '../../src/lib/server/analysis/test-dng';
 import { makeHeic } from '../../src/lib/server/analysis/test-heic';
 import { REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
+import { enrolDemoLearner } from './support/enrolled-learner';
+import { COURSE, demoAccount, LESSON } from './support/screens';
 
-type Demo = { role: string; email: string; password: string };
-const learner = (JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8')) as Demo[]).find((d) => d.role === 'learner')!;
-
-const COURSE = 'daylight-flash-for-action';
-const LESSON = 'off-the-axis';
-const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:54329/stopwise', { max: 2, onnotice: () => {} });
-let learnerId = '';
-let courseId = 0;
-
-async function removeAttempts() {
-	const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
-	const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
-	await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
-}
-
-test.beforeAll(async () => {
-	[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${learner.email}`;
-	[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
-	await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
-	await removeAttempts();
-});
-
-test.afterAll(async () => {
-	await removeAttempts();
-	await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
-	await sql.end();
-});
+enrolDemoLearner();
+const learner = demoAccount('learner');
 
 test('a HEIC reference and a DNG lit frame are graded with their pixels measured', async ({ page }) => {
 	test.setTimeout(120_000);

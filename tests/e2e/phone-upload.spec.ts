@@ -1,30 +1,16 @@
 // On a phone: a 40 MB frame goes up in parts, the connection drops during one part, the upload resumes from what the
 // server holds (not from zero) and the attempt is made; cancelling an upload leaves nothing on the server.
 import { expect, test, type Page } from '@playwright/test';
-import { readFileSync } from 'node:fs';
-import { rm } from 'node:fs/promises';
-import { join } from 'node:path';
 import postgres from 'postgres';
-import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
 import { padJpeg } from '../../src/lib/server/attempts/uploads/padded-jpeg';
+import { enrolDemoLearner, framePair } from './support/enrolled-learner';
+import { COURSE, demoAccount, LESSON } from './support/screens';
 
-type Demo = { role: string; email: string; password: string };
-const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
-const learner = demo.find((d) => d.role === 'learner')!;
-
-const COURSE = 'daylight-flash-for-action';
-const LESSON = 'off-the-axis';
 const MB = 1024 * 1024;
 const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:54329/stopwise', { max: 2, onnotice: () => {} });
-let learnerId = '';
-let courseId = 0;
-
-async function removeAttempts() {
-	const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
-	const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
-	await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
-	await sql`delete from frame_uploads where user_id = ${learnerId}`;
-}
+const learner = demoAccount('learner');
+const enrolled = enrolDemoLearner();
+test.afterAll(() => sql.end());
 
 async function openUploadPage(page: Page) {
 	const path = `/courses/${COURSE}/${LESSON}/assignments/${LESSON}`;
@@ -35,25 +21,11 @@ async function openUploadPage(page: Page) {
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Off the axis');
 }
 
-/** A passing pair for "Off the axis" (reference 1/500 s, lit 1/1500 s: log2(3) ≈ 1.6 stops under, APEX), the lit one 40 MB. */
+/** A passing pair for "Off the axis", the lit frame padded to 40 MB. */
 async function pair() {
-	const reference = await makeFrame({ width: 900, height: 600, subject: { stops: 0 }, background: { stops: 0.5 }, exif: { ...REFERENCE_EXIF } });
-	const lit = await makeFrame({ width: 900, height: 600, subject: { stops: 0 }, background: { stops: 0.5 - Math.log2(3) }, exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash: 0x19 } });
+	const { reference, lit } = await framePair();
 	return { reference, lit: padJpeg(lit, 40 * MB) };
 }
-
-test.beforeAll(async () => {
-	[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${learner.email}`;
-	[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
-	await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
-	await removeAttempts();
-});
-
-test.afterAll(async () => {
-	await removeAttempts();
-	await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
-	await sql.end();
-});
 
 test('a 40 MB frame survives a dropped connection and resumes where it stopped', async ({ page }) => {
 	test.setTimeout(180_000);
@@ -92,16 +64,16 @@ test('a 40 MB frame survives a dropped connection and resumes where it stopped',
 	expect(later.at(-1)!.offset).toBeGreaterThan(lit.length - 4 * MB - 1);
 
 	const [frames] = await sql<{ n: number; bytes: number }[]>`
-		select count(*)::int as n, max(bytes)::int as bytes from attempt_frames f join attempts a on a.id = f.attempt_id where a.user_id = ${learnerId}`;
+		select count(*)::int as n, max(bytes)::int as bytes from attempt_frames f join attempts a on a.id = f.attempt_id where a.user_id = ${enrolled.id}`;
 	expect(frames).toEqual({ n: 2, bytes: 40 * MB });
-	const [left] = await sql<{ n: number }[]>`select count(*)::int as n from frame_uploads where user_id = ${learnerId}`;
+	const [left] = await sql<{ n: number }[]>`select count(*)::int as n from frame_uploads where user_id = ${enrolled.id}`;
 	expect(left.n).toBe(0);
 });
 
 test('cancelling an upload stops it and leaves nothing on the server', async ({ page }) => {
 	test.setTimeout(120_000);
 	const { reference, lit } = await pair();
-	const attemptsNow = async () => (await sql<{ n: number }[]>`select count(*)::int as n from attempts where user_id = ${learnerId}`)[0].n;
+	const attemptsNow = async () => (await sql<{ n: number }[]>`select count(*)::int as n from attempts where user_id = ${enrolled.id}`)[0].n;
 	const before = await attemptsNow();
 	await openUploadPage(page);
 	// slow the parts down so there is time to cancel
@@ -117,6 +89,6 @@ test('cancelling an upload stops it and leaves nothing on the server', async ({ 
 	await page.getByTestId('cancel-upload').click();
 	await expect(page.getByText('Upload cancelled. Nothing was kept on the server')).toBeVisible();
 	await expect(page.getByTestId('send-attempt')).toBeEnabled();
-	await expect.poll(async () => (await sql<{ n: number }[]>`select count(*)::int as n from frame_uploads where user_id = ${learnerId}`)[0].n).toBe(0);
+	await expect.poll(async () => (await sql<{ n: number }[]>`select count(*)::int as n from frame_uploads where user_id = ${enrolled.id}`)[0].n).toBe(0);
 	expect(await attemptsNow()).toBe(before);
 });
