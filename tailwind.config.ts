@@ -20,7 +20,7 @@ export default {
 				flash: { DEFAULT: '#f0a040', soft: '#f6c27f', deep: '#b86d12' },
 				ambient: { DEFAULT: '#3d74e0', soft: '#8fb0f0', deep: '#1f4fae' },
 				pass: '#69bd74',
-				fail: '#e0645a',
+				fail: '#ee7166',
 				review: '#c9a63a'
 			},
 			fontFamily: {

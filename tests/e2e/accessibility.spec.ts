@@ -1,17 +1,16 @@
 // Every main page, as a visitor and as each role, on a desktop and (in the phone project) on a phone, through axe-core with the
 // WCAG 2.0/2.1/2.2 A and AA rules: no serious or critical violation. What axe cannot see (keyboard journeys, flashing) is tested elsewhere.
 import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Browser, type Page } from '@playwright/test';
+import { expect, test, type APIRequestContext, type Browser, type Page } from '@playwright/test';
 import { randomUUID } from 'node:crypto';
 import { existsSync, mkdirSync } from 'node:fs';
-import { rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import postgres from 'postgres';
 import { makeFrame, REFERENCE_EXIF } from '../../src/lib/server/analysis/test-frames';
+import { enrolDemoLearner, framePair } from './support/enrolled-learner';
 import {
 	adminScreens,
 	authorScreens,
-	COURSE,
 	demoAccount,
 	LESSON,
 	learnerScreens,
@@ -60,46 +59,44 @@ async function walk(page: Page, screens: Screen[]) {
 	for (const screen of screens) await test.step(screen.path, () => audit(page, screen));
 }
 
-// the demo learner, enrolled directly (payments are another feature), with one Attempt for the verdict and review pages
-let learnerId = '';
-let courseId = 0;
+// the demo learner, enrolled directly (payments are another feature), with two Attempts for the verdict and review pages:
+// one that passes and one told "not yet" (no flash on the subject), so both verdicts' colours are checked
+enrolDemoLearner();
 let attemptHref = '';
-async function removeAttempts() {
-	const rows = await sql<{ id: string }[]>`delete from attempts where user_id = ${learnerId} returning id`;
-	const dir = process.env.STOPWISE_DATA_DIR ?? join('.data', 'files');
-	await Promise.all(rows.map((r) => rm(join(dir, 'attempts', r.id), { recursive: true, force: true })));
-}
+let notYetHref = '';
 
-test.beforeAll(async ({ browser }) => {
-	[{ id: learnerId }] = await sql<{ id: string }[]>`select id from users where email = ${demoAccount('learner').email}`;
-	[{ id: courseId }] = await sql<{ id: number }[]>`select id from courses where slug = ${COURSE}`;
-	await sql`insert into enrolments (user_id, course_id, source) values (${learnerId}, ${courseId}, 'admin') on conflict do nothing`;
-	await removeAttempts();
-	const baseURL = test.info().project.use.baseURL!;
-	const context = await browser.newContext({ storageState: await sessionOf(browser, 'learner'), baseURL });
-	const reference = await makeFrame({ width: 600, height: 400, subject: { stops: 0 }, background: { stops: 0.5 }, exif: { ...REFERENCE_EXIF } });
-	const lit = await makeFrame({ width: 600, height: 400, subject: { stops: 0 }, background: { stops: 0.5 - Math.log2(3) }, exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash: 0x19 } });
-	const answer = await context.request.post('/api/v1/attempts', {
+async function sendPair(request: APIRequestContext, baseURL: string, flash: number, subjectLift: boolean): Promise<string> {
+	const pair = await framePair({ width: 600, height: 400, flash });
+	const lit = subjectLift
+		? pair.lit
+		: await makeFrame({ width: 600, height: 400, subject: { stops: -Math.log2(3) }, background: { stops: 0.5 - Math.log2(3) }, exif: { ...REFERENCE_EXIF, exposureTime: 1 / 1500, flash } });
+	const answer = await request.post('/api/v1/attempts', {
 		headers: { origin: new URL(baseURL).origin },
 		multipart: {
 			assignment: LESSON,
 			submissionKey: randomUUID(),
 			subjectBox: '0.3,0.25,0.4,0.5',
 			lightPlan: '',
-			'frame:reference': { name: 'reference.jpg', mimeType: 'image/jpeg', buffer: reference },
+			'frame:reference': { name: 'reference.jpg', mimeType: 'image/jpeg', buffer: pair.reference },
 			'frame:lit': { name: 'lit.jpg', mimeType: 'image/jpeg', buffer: lit }
 		}
 	});
 	expect(answer.status()).toBe(201);
-	attemptHref = ((await answer.json()) as { href: string }).href;
+	return ((await answer.json()) as { href: string }).href;
+}
+
+test.beforeAll(async ({ browser }) => {
+	const baseURL = test.info().project.use.baseURL!;
+	const context = await browser.newContext({ storageState: await sessionOf(browser, 'learner'), baseURL });
+	attemptHref = await sendPair(context.request, baseURL, 0x19, true);
+	notYetHref = await sendPair(context.request, baseURL, 0x10, false);
 	await context.close();
+	// the walk reads the verdicts, so it waits for the grader
+	const id = notYetHref.split('/').pop()!;
+	await expect.poll(async () => (await sql<{ verdict: string | null }[]>`select verdict from attempts where id = ${id}`)[0]?.verdict, { timeout: 60_000 }).toBe('fail');
 });
 
-test.afterAll(async () => {
-	await removeAttempts();
-	await sql`delete from enrolments where user_id = ${learnerId} and course_id = ${courseId} and source = 'admin'`;
-	await sql.end();
-});
+test.afterAll(() => sql.end());
 
 test('every page a visitor sees', async ({ page }) => walk(page, visitorScreens));
 
@@ -111,8 +108,12 @@ for (const role of ['learner', 'mentor', 'author', 'admin'] as const) {
 		});
 		test(`every ${role} page`, async ({ page }) => {
 			const screens = {
-				learner: () => learnerScreens(attemptHref),
-				mentor: () => [...mentorScreens, { name: 'mentor-attempt', path: attemptHref.replace('/attempts/', '/mentor/attempts/') }],
+				learner: () => [...learnerScreens(attemptHref), { name: 'verdict-not-yet', path: notYetHref, heading: /^Off the axis$/ }],
+				mentor: () => [
+					...mentorScreens,
+					{ name: 'mentor-attempt', path: attemptHref.replace('/attempts/', '/mentor/attempts/') },
+					{ name: 'mentor-attempt-not-yet', path: notYetHref.replace('/attempts/', '/mentor/attempts/') }
+				],
 				author: () => authorScreens(sql),
 				admin: () => adminScreens
 			}[role];
