@@ -67,6 +67,9 @@ describe('Falloff Ruler', () => {
 		expect(attrOf(body, 'falloff-chart', 'aria-label')).toMatch(/two stops each time the distance doubles/);
 		expect(body).toMatch(/<path d="M-?[\d.]+,-?[\d.]+(L-?[\d.]+,-?[\d.]+){50,}"/);
 		expect(body).toContain('>6 m</text>');
+		// the chart in words, read at its ticks. Inverse square with GN 30 at f/8 (hand-worked): 2·log2(30 / (8 × 2)) = +1.81
+		// stops at 2 m, 2·log2(30 / (8 × 4)) = −0.19 at 4 m
+		expect(attrOf(body, 'falloff-chart', 'aria-label')).toContain('Flash at f/8 (inverse square): +1.8 at 2 m, \u22120.2 at 4 m,');
 	});
 
 	it('shows a notice and falls back instead of throwing on bad attributes', () => {

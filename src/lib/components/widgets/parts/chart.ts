@@ -41,3 +41,31 @@ export function linePath(points: readonly ChartPoint[], sx: (v: number) => numbe
 export function sampleRange(a: number, b: number, count: number): number[] {
 	return Array.from({ length: count }, (_, i) => a + ((b - a) * i) / (count - 1));
 }
+
+/** The series' value at x, read along its line between the nearest points on either side; NaN off the line or in a gap. */
+export function valueAt(points: readonly ChartPoint[], x: number): number {
+	for (let k = 1; k < points.length; k++) {
+		const [x0, y0] = points[k - 1];
+		const [x1, y1] = points[k];
+		if (x < Math.min(x0, x1) || x > Math.max(x0, x1)) continue;
+		if (!Number.isFinite(y0) || !Number.isFinite(y1)) return NaN;
+		return x1 === x0 ? y0 : y0 + ((x - x0) / (x1 - x0)) * (y1 - y0);
+	}
+	return NaN;
+}
+
+/**
+ * The chart in words for whoever cannot see it: each series read at the x ticks, e.g.
+ * "Flash at f/8: +1.3 at 2 m, −0.3 at 4 m". `value` formats a reading; ticks where a series has no value are left out.
+ */
+export function describeSeries(series: readonly ChartSeries[], xTicks: readonly ChartTick[], value: (y: number) => string): string {
+	return series
+		.map((s) => {
+			const readings = xTicks.flatMap((t) => {
+				const y = valueAt(s.points, t.value);
+				return Number.isFinite(y) ? [`${value(y)} at ${t.label}`] : [];
+			});
+			return readings.length ? `${s.label}: ${readings.join(', ')}` : `${s.label}: no values`;
+		})
+		.join('; ');
+}
