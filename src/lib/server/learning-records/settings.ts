@@ -1,0 +1,32 @@
+// Where learning records go: the Learning Record Store from STOPWISE_LRS_* and the origin our activity IRIs are built on.
+import XAPI from '@xapi/xapi';
+
+export interface LrsSettings {
+	/** the LRS's xAPI endpoint, ending in a slash (statements are at `<endpoint>statements`) */
+	endpoint: string;
+	/** the HTTP Basic Authorization header value */
+	auth: string;
+	/** the endpoint as admins may see it: no credentials */
+	shown: string;
+}
+
+/** The LRS, or null when STOPWISE_LRS_ENDPOINT is unset: statements then wait in the outbox until one is configured. */
+export function lrsSettings(env: NodeJS.ProcessEnv = process.env): LrsSettings | null {
+	const raw = env.STOPWISE_LRS_ENDPOINT?.trim();
+	if (!raw) return null;
+	const url = new URL(raw);
+	const user = env.STOPWISE_LRS_USER ?? decodeURIComponent(url.username);
+	const password = env.STOPWISE_LRS_PASSWORD ?? decodeURIComponent(url.password);
+	url.username = '';
+	url.password = '';
+	const endpoint = url.toString().replace(/\/?$/, '/');
+	return { endpoint, auth: XAPI.toBasicAuth(user, password), shown: endpoint };
+}
+
+/**
+ * The origin our IRIs start with (activities, our verbs, extensions): STOPWISE_XAPI_ORIGIN, else the app's ORIGIN.
+ * Statements keep the IRIs they were written with, so a school sets it once and keeps it.
+ */
+export function recordsOrigin(env: NodeJS.ProcessEnv = process.env): string {
+	return (env.STOPWISE_XAPI_ORIGIN || env.ORIGIN || 'http://localhost:3000').replace(/\/+$/, '');
+}
