@@ -13,10 +13,7 @@ import { and, asc, eq, inArray } from 'drizzle-orm';
 import validation from '@learninglocker/xapi-validation';
 import { db } from '$lib/server/db';
 import { courses, learningRecords, lessons, modules } from '$lib/server/db/schema';
-import { closeQueue, GRADE_QUEUE, openQueue } from '$lib/server/attempts/queue';
-import { gradeAttempt } from '$lib/server/attempts/grade-job';
-import { submitAttempt } from '$lib/server/attempts/submit';
-import { readUploadForm } from '$lib/server/attempts/upload-form';
+import { closeQueue, openQueue } from '$lib/server/attempts/queue';
 import { saveReview } from '$lib/server/review/save';
 import { saveQuizAnswer, setLessonComplete } from '$lib/server/progress';
 import { deliverWaiting } from '$lib/server/learning-records/deliver';
@@ -25,7 +22,7 @@ import { lrsSettings, recordsOrigin, type LrsSettings } from '$lib/server/learni
 import { retryNow, learningRecordsOverview } from '$lib/server/learning-records/admin';
 import { startDeliveryWorker } from '$lib/server/learning-records/worker';
 import { demoAccount, freshLearner, removeFreshPeople, userIdOf } from './support/people';
-import { ASSIGNMENT, COURSE, attemptIdsOf, enrol, key, passingPair, removeAttempts, uploadData } from './support/attempts';
+import { COURSE, attemptIdsOf, enrol, gradedAttemptOf, removeAttempts } from './support/attempts';
 
 const validate = ((validation as unknown as { default?: typeof validation }).default ?? validation) as (s: unknown) => unknown[];
 const SERVER = fileURLToPath(new URL('../../fakes/lrs/server.mjs', import.meta.url));
@@ -128,13 +125,7 @@ describe('learning records', () => {
 		await setLessonComplete(learner.id, first, false);
 		await setLessonComplete(learner.id, first, true);
 
-		const form = readUploadForm(uploadData({ assignment: ASSIGNMENT, submissionKey: key() }, await passingPair()));
-		if (!form.ok) throw new Error(form.message);
-		const made = await submitAttempt({ id: learner.id, roles: ['learner'] }, form.form);
-		if (made.kind !== 'created') throw new Error(made.kind);
-		attemptId = made.id;
-		await (await openQueue()).deleteJob(GRADE_QUEUE, attemptId);
-		expect(await gradeAttempt(attemptId)).toBe('graded');
+		attemptId = await gradedAttemptOf(learner.id);
 		const review = await saveReview(mentor, attemptId, { text: 'The rim light holds the shoulder.', rubric: { moment: 4 }, verdict: 'needs-review', reason: 'The flash bit is unset; checking the trigger.' });
 		expect(review.ok).toBe(true);
 		for (const id of rest) await setLessonComplete(learner.id, id, true);
