@@ -216,6 +216,20 @@ describe('learning records', () => {
 		expect((await rowsOf(learner.id)).filter((r) => r.sentAt === null)).toHaveLength(1);
 	});
 
+	test('an endpoint that is not a URL: the admin page names the problem, nothing is sent, nothing fails', async () => {
+		const saved = process.env.STOPWISE_LRS_ENDPOINT;
+		process.env.STOPWISE_LRS_ENDPOINT = 'lrs.example.org/xapi';
+		try {
+			const overview = await learningRecordsOverview();
+			expect(overview).toMatchObject({ endpoint: null, problem: expect.stringMatching(/not a URL/) });
+			expect(overview.backlog.length).toBeGreaterThanOrEqual(1);
+			expect(await deliverWaiting()).toMatchObject({ configured: false, sent: 0 });
+		} finally {
+			if (saved === undefined) delete process.env.STOPWISE_LRS_ENDPOINT;
+			else process.env.STOPWISE_LRS_ENDPOINT = saved;
+		}
+	});
+
 	test('the pg-boss job delivers on its own once woken', async () => {
 		const saved = { ...process.env };
 		Object.assign(process.env, { STOPWISE_LRS_ENDPOINT: `http://127.0.0.1:${fake.port}/xapi/`, STOPWISE_LRS_USER: USER, STOPWISE_LRS_PASSWORD: PASSWORD });

@@ -4,7 +4,7 @@ import { and, count, desc, eq, isNotNull, isNull, max, min } from 'drizzle-orm';
 import { db } from '../db';
 import { learningRecords, users, type LearningRecordKind } from '../db/schema';
 import { deliverSoon } from './outbox';
-import { lrsSettings } from './settings';
+import { lrsProblem, lrsSettings } from './settings';
 
 export interface StatementLine {
 	id: string;
@@ -21,6 +21,8 @@ export interface StatementLine {
 export interface LearningRecordsOverview {
 	/** the LRS endpoint (no credentials), or null when none is configured */
 	endpoint: string | null;
+	/** why the configured endpoint cannot be used, if so */
+	problem: string | null;
 	waiting: number;
 	rejected: number;
 	sent: number;
@@ -86,6 +88,7 @@ export async function learningRecordsOverview(): Promise<LearningRecordsOverview
 	]);
 	return {
 		endpoint: lrsSettings()?.shown ?? null,
+		problem: lrsProblem(),
 		waiting: waiting.n,
 		rejected: rejected.n,
 		sent: sent.n,

@@ -10,15 +10,33 @@ export interface LrsSettings {
 	shown: string;
 }
 
-/** The LRS, or null when STOPWISE_LRS_ENDPOINT is unset: statements then wait in the outbox until one is configured. */
-export function lrsSettings(env: NodeJS.ProcessEnv = process.env): LrsSettings | null {
+/** Why STOPWISE_LRS_ENDPOINT cannot be used (not an http(s) URL), or null when it is unset or fine. */
+export function lrsProblem(env: NodeJS.ProcessEnv = process.env): string | null {
 	const raw = env.STOPWISE_LRS_ENDPOINT?.trim();
 	if (!raw) return null;
+	let url: URL;
+	try {
+		url = new URL(raw);
+	} catch {
+		return 'STOPWISE_LRS_ENDPOINT is not a URL; statements wait until it is fixed.';
+	}
+	return url.protocol === 'http:' || url.protocol === 'https:' ? null : 'STOPWISE_LRS_ENDPOINT must start with http:// or https://; statements wait until it is fixed.';
+}
+
+/**
+ * The LRS, or null when STOPWISE_LRS_ENDPOINT is unset (or unusable: see lrsProblem): statements then wait in the
+ * outbox until one is configured. Credentials come from STOPWISE_LRS_USER/_PASSWORD, else from the URL itself.
+ */
+export function lrsSettings(env: NodeJS.ProcessEnv = process.env): LrsSettings | null {
+	const raw = env.STOPWISE_LRS_ENDPOINT?.trim();
+	if (!raw || lrsProblem(env)) return null;
 	const url = new URL(raw);
 	const user = env.STOPWISE_LRS_USER ?? decodeURIComponent(url.username);
 	const password = env.STOPWISE_LRS_PASSWORD ?? decodeURIComponent(url.password);
 	url.username = '';
 	url.password = '';
+	url.search = '';
+	url.hash = '';
 	const endpoint = url.toString().replace(/\/?$/, '/');
 	return { endpoint, auth: XAPI.toBasicAuth(user, password), shown: endpoint };
 }
