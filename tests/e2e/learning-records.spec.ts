@@ -1,16 +1,11 @@
 // A learner's lesson, completed by its quizzes, reaches the Learning Record Store fake as xAPI statements, each once;
 // the admin page shows them sent.
 import { expect, test } from '@playwright/test';
-import { readFileSync } from 'node:fs';
 import postgres from 'postgres';
 import { signUpAndConfirm } from './support/sign-up';
 import { expectVerbsFor } from './support/lrs';
+import { COURSE, demoAccount } from './support/screens';
 
-type Demo = { role: string; email: string; password: string };
-const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
-const account = (role: string) => demo.find((d) => d.role === role)!;
-
-const COURSE = 'daylight-flash-for-action';
 const LESSON = 'what-a-stop-is';
 const ADL = 'http://adlnet.gov/expapi/verbs/';
 const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:54329/stopwise', { max: 2, onnotice: () => {} });
@@ -47,8 +42,8 @@ test('a lesson completed by its quizzes reaches the LRS as answered and complete
 	const context = await browser.newContext();
 	const admin = await context.newPage();
 	await admin.goto('/signin?redirectTo=/admin/learning-records');
-	await admin.getByLabel('E-mail', { exact: true }).fill(account('admin').email);
-	await admin.getByLabel('Password', { exact: true }).fill(account('admin').password);
+	await admin.getByLabel('E-mail', { exact: true }).fill(demoAccount('admin').email);
+	await admin.getByLabel('Password', { exact: true }).fill(demoAccount('admin').password);
 	await admin.getByRole('button', { name: 'Sign in' }).click();
 	await expect(admin.getByRole('heading', { level: 1 })).toHaveText('Learning records');
 	await expect(admin.getByRole('region', { name: 'Statements sent', exact: true })).toContainText('Rowan Tide');
