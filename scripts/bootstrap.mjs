@@ -199,6 +199,22 @@ function setStorageDefaults() {
 	env.STOPWISE_S3_SECRET_ACCESS_KEY ??= 'S3RVER';
 }
 
+/**
+ * Learning records: unless STOPWISE_LRS_ENDPOINT names a real Learning Record Store, the app sends its xAPI statements
+ * to the fake in fakes/lrs (its own port, folder and fixed credentials per mode; emptied for test and bench runs).
+ */
+function setLearningRecordDefaults() {
+	if (env.STOPWISE_LRS_ENDPOINT) return;
+	env.FAKE_LRS_PORT ??= { start: '8371', test: '8372', bench: '8373' }[mode];
+	env.FAKE_LRS_DIR ??= join(root, '.data', mode === 'start' ? 'lrs' : `lrs-${mode}`);
+	if (mode !== 'start') env.FAKE_LRS_CLEAR ??= '1';
+	env.FAKE_LRS_USER ??= 'stopwise-local';
+	env.FAKE_LRS_PASSWORD ??= 'stopwise-local-secret';
+	env.STOPWISE_LRS_ENDPOINT = `http://127.0.0.1:${env.FAKE_LRS_PORT}/xapi/`;
+	env.STOPWISE_LRS_USER = env.FAKE_LRS_USER;
+	env.STOPWISE_LRS_PASSWORD = env.FAKE_LRS_PASSWORD;
+}
+
 // ---------- app steps ----------
 const tsx = (script, args = []) => must(process.execPath, [join(root, 'node_modules/tsx/dist/cli.mjs'), script, ...args]);
 const bin = (name) => join(root, 'node_modules', '.bin', name);
@@ -295,6 +311,7 @@ async function main() {
 	if (mode !== 'start') env.FAKE_SMTP_CLEAR ??= '1';
 	setPaymentDefaults();
 	setStorageDefaults();
+	setLearningRecordDefaults();
 	await startFakes();
 	if (mode === 'start') {
 		build();

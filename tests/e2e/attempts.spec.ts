@@ -1,9 +1,10 @@
 // A learner uploads a pair → sees the verdict → a mentor pins a comment and overrides → the learner reads the critique and gets the e-mail.
 import { expect, test, type Browser, type Page } from '@playwright/test';
 import { enrolDemoLearner, framePair } from './support/enrolled-learner';
+import { expectVerbsFor } from './support/lrs';
 import { COURSE, demoAccount, LESSON, type Role } from './support/screens';
 
-enrolDemoLearner();
+const learner = enrolDemoLearner();
 
 async function signIn(page: Page, role: Role, redirectTo = '/') {
 	const { email, password } = demoAccount(role);
@@ -117,4 +118,14 @@ test('upload → verdict → mentor pin and override → critique and e-mail', a
 		.click();
 	await expect(admin.page.getByTestId('mail-text')).toContainText('The mentor changed the verdict to: not yet.');
 	await admin.close();
+
+	// the learner's records reached the LRS: the attempt, the automatic pass, the mentor's change and the critique
+	const attemptId = attemptUrl.split('/').at(-1)!;
+	const ADL = 'http://adlnet.gov/expapi/verbs/';
+	const held = await expectVerbsFor(learner.id, [`${ADL}attempted`, `${ADL}passed`, `${ADL}failed`]);
+	const aboutThis = (s: (typeof held)[number]) => JSON.stringify(s).includes(attemptId);
+	expect(held.filter((s) => s.verb.id === `${ADL}attempted` && aboutThis(s))).toHaveLength(1);
+	expect(held.filter((s) => s.verb.id === `${ADL}passed` && aboutThis(s))).toHaveLength(1);
+	expect(held.filter((s) => s.verb.id === `${ADL}failed` && aboutThis(s))).toHaveLength(1);
+	expect(held.filter((s) => s.verb.id.endsWith('/xapi/verbs/received-critique') && aboutThis(s))).toHaveLength(1);
 });

@@ -5,17 +5,14 @@ import { randomUUID } from 'node:crypto';
 import { stringify } from 'devalue';
 import { db } from '$lib/server/db';
 import { attempts, auditLog, pins, verdictOverrides } from '$lib/server/db/schema';
-import { closeQueue, GRADE_QUEUE, openQueue } from '$lib/server/attempts/queue';
-import { gradeAttempt } from '$lib/server/attempts/grade-job';
-import { submitAttempt } from '$lib/server/attempts/submit';
-import { readUploadForm } from '$lib/server/attempts/upload-form';
+import { closeQueue, openQueue } from '$lib/server/attempts/queue';
 import { loadAttemptView } from '$lib/server/attempts/view';
 import { addPin } from '$lib/server/review/save';
 import { actions, load } from '../../src/routes/(mentor)/mentor/attempts/[id]/+page.server';
 import { failureOf, makeEvent, throughHooks } from './support/request-event';
 import { demoAccount, freshLearner, removeFreshPeople, signedInCookies, userIdOf } from './support/people';
 import { waitForMail } from './support/mail';
-import { ASSIGNMENT, attemptIdsOf, enrol, key, passingPair, removeAttempts, uploadData } from './support/attempts';
+import { attemptIdsOf, enrol, gradedAttemptOf, removeAttempts } from './support/attempts';
 
 let learner: Awaited<ReturnType<typeof freshLearner>>;
 let attemptId: string;
@@ -46,13 +43,7 @@ beforeAll(async () => {
 	mentor = { id: await userIdOf(demoAccount('mentor').email), email: demoAccount('mentor').email };
 	learner = await freshLearner();
 	await enrol(learner.id);
-	const form = readUploadForm(uploadData({ assignment: ASSIGNMENT, submissionKey: key() }, await passingPair()));
-	if (!form.ok) throw new Error(form.message);
-	const made = await submitAttempt({ id: learner.id, roles: ['learner'] }, form.form);
-	if (made.kind !== 'created') throw new Error(made.kind);
-	attemptId = made.id;
-	await (await openQueue()).deleteJob(GRADE_QUEUE, attemptId);
-	expect(await gradeAttempt(attemptId)).toBe('graded');
+	attemptId = await gradedAttemptOf(learner.id);
 });
 
 afterAll(async () => {

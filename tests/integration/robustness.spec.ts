@@ -41,6 +41,7 @@ const audiences: Record<string, Record<string, Audience>> = {
 	'/(admin)/admin/enrolments': { grant: 'admin', setStatus: 'admin' },
 	'/(admin)/admin/payments': { refund: 'admin' },
 	'/(admin)/admin/people': { setRoles: 'admin' },
+	'/(admin)/admin/learning-records': { retry: 'admin' },
 	'/(admin)/admin/coupons': { create: 'admin' },
 	'/(admin)/admin/coupons/[code]': { change: 'admin' },
 	'/(public)/signout': { default: 'anyone' },

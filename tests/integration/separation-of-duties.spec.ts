@@ -6,16 +6,13 @@ import { randomUUID } from 'node:crypto';
 import { stringify } from 'devalue';
 import { db } from '$lib/server/db';
 import { attempts, critiques, pins, users, verdictOverrides } from '$lib/server/db/schema';
-import { closeQueue, GRADE_QUEUE, openQueue } from '$lib/server/attempts/queue';
-import { gradeAttempt } from '$lib/server/attempts/grade-job';
-import { submitAttempt } from '$lib/server/attempts/submit';
-import { readUploadForm } from '$lib/server/attempts/upload-form';
+import { closeQueue, openQueue } from '$lib/server/attempts/queue';
 import { actions, load } from '../../src/routes/(mentor)/mentor/attempts/[id]/+page.server';
 import { load as queueLoad } from '../../src/routes/(mentor)/mentor/+page.server';
 import { GET as queueApi } from '../../src/routes/api/v1/review-queue/+server';
 import { failureOf, makeEvent, throughHooks } from './support/request-event';
 import { demoAccount, freshLearner, removeFreshPeople, signedInCookies } from './support/people';
-import { ASSIGNMENT, attemptIdsOf, enrol, key, passingPair, removeAttempts, uploadData } from './support/attempts';
+import { attemptIdsOf, enrol, gradedAttemptOf, removeAttempts } from './support/attempts';
 
 let self: Awaited<ReturnType<typeof freshLearner>>;
 let attemptId: string;
@@ -26,13 +23,7 @@ beforeAll(async () => {
 	self = await freshLearner();
 	await db.update(users).set({ roles: ['learner', 'mentor', 'admin'] }).where(eq(users.id, self.id));
 	await enrol(self.id);
-	const form = readUploadForm(uploadData({ assignment: ASSIGNMENT, submissionKey: key() }, await passingPair()));
-	if (!form.ok) throw new Error(form.message);
-	const made = await submitAttempt({ id: self.id, roles: ['learner'] }, form.form);
-	if (made.kind !== 'created') throw new Error(made.kind);
-	attemptId = made.id;
-	await (await openQueue()).deleteJob(GRADE_QUEUE, attemptId);
-	expect(await gradeAttempt(attemptId)).toBe('graded');
+	attemptId = await gradedAttemptOf(self.id);
 });
 
 afterAll(async () => {

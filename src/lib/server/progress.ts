@@ -4,6 +4,7 @@ import { db } from './db';
 import { courses, enrolments, lessonProgress, lessons, modules, quizAnswers, type Role } from './db/schema';
 
 import type { SavedQuizAnswers } from '../lessons/page-data';
+import { deliverSoon, recordLessonCompleted, recordQuizAnswered } from './learning-records/outbox';
 
 export type SavedAnswers = SavedQuizAnswers;
 
@@ -23,26 +24,38 @@ export async function visitLesson(userId: string, lessonId: number): Promise<{ c
 	};
 }
 
-/** Marks a lesson complete (or not); completing again keeps the first completion time. */
+/**
+ * Marks a lesson complete (or not); completing again keeps the first completion time. The first completion (and the
+ * course's, when it was the last lesson) is a learning record, written in the same transaction.
+ */
 export async function setLessonComplete(userId: string, lessonId: number, complete: boolean): Promise<void> {
-	await db
-		.insert(lessonProgress)
-		.values({ userId, lessonId, completedAt: complete ? new Date() : null })
-		.onConflictDoUpdate({
-			target: [lessonProgress.userId, lessonProgress.lessonId],
-			set: { completedAt: complete ? sql`coalesce(${lessonProgress.completedAt}, now())` : null }
-		});
+	await db.transaction(async (tx) => {
+		await tx
+			.insert(lessonProgress)
+			.values({ userId, lessonId, completedAt: complete ? new Date() : null })
+			.onConflictDoUpdate({
+				target: [lessonProgress.userId, lessonProgress.lessonId],
+				set: { completedAt: complete ? sql`coalesce(${lessonProgress.completedAt}, now())` : null }
+			});
+		if (complete) await recordLessonCompleted(tx, userId, lessonId);
+	});
+	if (complete) deliverSoon();
 }
 
-/** Stores the newest answer to one quiz (one row per learner, lesson and quiz). */
+/** Stores the newest answer to one quiz (one row per learner, lesson and quiz), and the answer as a learning record. */
 export async function saveQuizAnswer(userId: string, lessonId: number, quizId: string, answer: string, correct: boolean): Promise<void> {
-	await db
-		.insert(quizAnswers)
-		.values({ userId, lessonId, quizId, answer, correct })
-		.onConflictDoUpdate({
-			target: [quizAnswers.userId, quizAnswers.lessonId, quizAnswers.quizId],
-			set: { answer, correct, answeredAt: sql`now()` }
-		});
+	await db.transaction(async (tx) => {
+		const [row] = await tx
+			.insert(quizAnswers)
+			.values({ userId, lessonId, quizId, answer, correct })
+			.onConflictDoUpdate({
+				target: [quizAnswers.userId, quizAnswers.lessonId, quizAnswers.quizId],
+				set: { answer, correct, answeredAt: sql`now()` }
+			})
+			.returning({ answeredAt: quizAnswers.answeredAt });
+		await recordQuizAnswered(tx, userId, lessonId, { id: quizId, answer, correct }, row.answeredAt);
+	});
+	deliverSoon();
 }
 
 /** Completes the lesson once every one of its quizzes has a right answer; returns whether it is complete now. */

@@ -78,5 +78,6 @@ export const adminScreens: Screen[] = [
 	{ name: 'admin-coupons', path: '/admin/coupons', heading: /^Coupons$/ },
 	{ name: 'admin-audit', path: '/admin/audit', heading: /^Audit log$/ },
 	{ name: 'admin-mailbox', path: '/admin/mailbox', heading: /^Mailbox$/ },
+	{ name: 'admin-learning-records', path: '/admin/learning-records', heading: /^Learning records$/ },
 	{ name: 'admin-coupon', path: '/admin/coupons/HARBOR20' }
 ];

@@ -7,6 +7,10 @@ import { fileStore } from '$lib/server/storage';
 import { attemptFolder } from '$lib/server/attempts/keys';
 import { makeFrame, REFERENCE_EXIF } from '$lib/server/analysis/test-frames';
 import { makeEvent, type TestCookies } from './request-event';
+import { GRADE_QUEUE, openQueue } from '$lib/server/attempts/queue';
+import { gradeAttempt } from '$lib/server/attempts/grade-job';
+import { submitAttempt } from '$lib/server/attempts/submit';
+import { readUploadForm } from '$lib/server/attempts/upload-form';
 
 export const COURSE = 'daylight-flash-for-action';
 /** Lesson 09's assignment: a reference frame, then a lit frame 1½ ± ½ stops under with the subject relit. */
@@ -86,3 +90,14 @@ export async function attemptIdsOf(userId: string): Promise<string[]> {
 }
 
 export const key = () => `test-${Math.random().toString(36).slice(2, 12)}`;
+
+/** An attempt of ASSIGNMENT with a passing pair, submitted as the upload route does and graded here (its queued job removed). */
+export async function gradedAttemptOf(userId: string): Promise<string> {
+	const form = readUploadForm(uploadData({ assignment: ASSIGNMENT, submissionKey: key() }, await passingPair()));
+	if (!form.ok) throw new Error(form.message);
+	const made = await submitAttempt({ id: userId, roles: ['learner'] }, form.form);
+	if (made.kind !== 'created') throw new Error(made.kind);
+	await (await openQueue()).deleteJob(GRADE_QUEUE, made.id);
+	if ((await gradeAttempt(made.id)) !== 'graded') throw new Error(`attempt ${made.id} was not graded`);
+	return made.id;
+}

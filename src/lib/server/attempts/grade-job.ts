@@ -8,6 +8,7 @@ import { grade, SpecValidationError, type AssignmentSpecInput, type CriterionRes
 import { fileStore } from '../storage/index';
 import { notifyAttemptSql } from './events';
 import { maxUploadBytes } from './limits';
+import { deliverSoon, recordVerdict } from '../learning-records/outbox';
 
 export type { StoredAnalysis, StoredResult } from '../db/json-types';
 import type { StoredAnalysis, StoredResult } from '../db/json-types';
@@ -93,6 +94,11 @@ export async function gradeAttempt(attemptId: string, options: GradeOptions = {}
 					.set({ analysis, width: pixels?.width ?? row.width, height: pixels?.height ?? row.height })
 					.where(eq(attemptFrames.id, row.id));
 			}
+			await recordVerdict(tx, attemptId, {
+				verdict: result.verdict,
+				criteria: { passed: result.criteria.filter((c) => c.verdict === 'pass').length, total: result.criteria.length },
+				decidedBy: { kind: 'grading' }
+			});
 			await tx.execute(notifyAttemptSql(attemptId));
 		});
 	} catch (error) {
@@ -100,6 +106,7 @@ export async function gradeAttempt(attemptId: string, options: GradeOptions = {}
 		if (error instanceof DrizzleError && error.cause instanceof AlreadyGraded) return 'already-graded';
 		throw error;
 	}
+	deliverSoon();
 	return 'graded';
 }
 

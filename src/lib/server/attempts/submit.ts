@@ -9,6 +9,7 @@ import type { AuthUser } from '../auth';
 import { findAssignment } from './assignment';
 import { attemptFolder } from './keys';
 import { queueGrading } from './queue';
+import { deliverSoon, recordAttemptSubmitted } from '../learning-records/outbox';
 import { planGateMessage } from '../shoot-plans/read';
 import { lightPlanProblem, specWithStatedMotion } from './stated';
 import { checkFrames, writeFrames, type FrameProblems } from './store-frames';
@@ -91,6 +92,7 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 				.returning({ id: attempts.id });
 			if (!row) return false;
 			await tx.insert(attemptFrames).values(stored.map((f) => ({ attemptId: id, ...f })));
+			await recordAttemptSubmitted(tx, user.id, assignment.id, id);
 			return true;
 		});
 		if (!inserted) {
@@ -107,5 +109,6 @@ export async function submitAttempt(user: Pick<AuthUser, 'id' | 'roles'>, form: 
 
 	// the attempt is safe now; a failed send is picked up by the worker's sweep for stranded attempts
 	await queueGrading(id).catch((error: unknown) => console.error('[attempts] could not queue grading', error instanceof Error ? error.message : error));
+	deliverSoon();
 	return { kind: 'created', id };
 }

@@ -5,6 +5,7 @@ import { client, db } from '../db/index';
 import { attempts } from '../db/schema';
 import { gradeAttempt, markGradingFailed, type GradeOptions } from './grade-job';
 import { sweepUploads } from './uploads/sweep';
+import { startDeliveryWorker } from '../learning-records/worker';
 import { GRADE_FAILED_QUEUE, GRADE_QUEUE, SWEEP_CRON, SWEEP_QUEUE, openQueue, queueGrading, registerLocalWorker, WAKE_CHANNEL, type GradeJobData, type QueueOptions } from './queue';
 
 // a fallback only: a sent job wakes the worker at once
@@ -63,6 +64,9 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 		return report;
 	});
 
+	// learning records (xAPI statements) are sent by the same processes that grade
+	const delivery = await startDeliveryWorker(boss);
+
 	const listener = await client.listen(WAKE_CHANNEL, () => boss.notifyWorker(id)).catch((error: unknown) => {
 		console.error('[worker] cannot LISTEN for new jobs; polling only', error instanceof Error ? error.message : error);
 		return null;
@@ -80,6 +84,7 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 			await boss.offWork({ id });
 			await boss.offWork({ id: deadId });
 			await boss.offWork({ id: sweepId });
+			await delivery.stop();
 		}
 	};
 }

@@ -536,3 +536,38 @@ export const frameUploads = pgTable(
 	(t) => [uniqueIndex('frame_uploads_frame_idx').on(t.userId, t.submissionKey, t.frameName), index('frame_uploads_created_idx').on(t.createdAt)]
 );
 export type FrameUpload = typeof frameUploads.$inferSelect;
+
+// ---- learning records (xAPI) ----
+
+export const learningRecordKinds = ['lesson-completed', 'quiz-answered', 'attempt-submitted', 'verdict-received', 'critique-received', 'course-completed'] as const;
+export type LearningRecordKind = (typeof learningRecordKinds)[number];
+
+/**
+ * The outbox of xAPI statements: written in the transaction of the event they record, sent to the Learning Record Store
+ * by the pg-boss job in `learning-records/`. The id is the statement's id, so a resend is the same statement.
+ */
+export const learningRecords = pgTable(
+	'learning_records',
+	{
+		/** the statement id (a UUID, stable from the event where one event could be recorded twice) */
+		id: text('id').primaryKey(),
+		kind: text('kind', { enum: learningRecordKinds }).notNull(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		statement: jsonb('statement').$type<Record<string, unknown>>().notNull(),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		/** when the LRS took it (204, or 409: it already held that id); null while it waits */
+		sentAt: timestamp('sent_at', { withTimezone: true }),
+		tries: integer('tries').notNull().default(0),
+		lastTriedAt: timestamp('last_tried_at', { withTimezone: true }),
+		/** the last failure in one line (network, status and the LRS's message) */
+		lastError: text('last_error'),
+		/** the LRS's HTTP status at the last try */
+		lrsStatus: integer('lrs_status'),
+		/** the LRS refused it as malformed (a 4xx other than 401/403/408/409/429): not resent until an admin retries */
+		rejected: boolean('rejected').notNull().default(false)
+	},
+	(t) => [index('learning_records_waiting_idx').on(t.createdAt).where(sql`${t.sentAt} is null`), index('learning_records_sent_idx').on(t.sentAt)]
+);
+export type LearningRecord = typeof learningRecords.$inferSelect;

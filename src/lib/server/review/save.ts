@@ -5,6 +5,7 @@ import { assignments, attemptFrames, attempts, critiques, pins, users, verdictOv
 import { cleanRubric, rubricFor } from '../grading/rubric';
 import { recordAudit } from '../audit';
 import { notifyAttemptSql } from '../attempts/events';
+import { deliverSoon, recordCritique, recordVerdict } from '../learning-records/outbox';
 
 export interface Mentor {
 	id: string;
@@ -119,9 +120,9 @@ export async function saveReview(mentor: Mentor, attemptId: string, input: Revie
 	if (text.length > MAX_CRITIQUE) return { ok: false, status: 400, message: `The critique is over ${MAX_CRITIQUE} characters; please shorten it.` };
 	if (input.verdict !== 'keep' && !(verdicts as readonly string[]).includes(input.verdict)) return { ok: false, status: 400, message: 'Choose a verdict from the list.' };
 
-	return db.transaction(async (tx) => {
+	const saved = await db.transaction(async (tx) => {
 		const [row] = await tx
-			.select({ learnerId: attempts.userId, verdict: attempts.verdict, status: attempts.status, reviewState: attempts.reviewState, spec: attempts.spec, email: users.email, name: users.name, assignment: assignments.title })
+			.select({ learnerId: attempts.userId, verdict: attempts.verdict, status: attempts.status, reviewState: attempts.reviewState, spec: attempts.spec, result: attempts.result, email: users.email, name: users.name, assignment: assignments.title })
 			.from(attempts)
 			.innerJoin(users, eq(attempts.userId, users.id))
 			.innerJoin(assignments, eq(attempts.assignmentId, assignments.id))
@@ -141,8 +142,15 @@ export async function saveReview(mentor: Mentor, attemptId: string, input: Revie
 			.values({ attemptId, mentorId: mentor.id, text, rubric })
 			.onConflictDoUpdate({ target: critiques.attemptId, set: { mentorId: mentor.id, text, rubric, updatedAt: now } });
 		const verdict = changed ? (input.verdict as AttemptVerdict) : row.verdict;
+		// the learner's records: the first critique, and each changed verdict
+		if (row.reviewState === 'open') await recordCritique(tx, attemptId, { mentorId: mentor.id, rubric }, now);
 		if (changed) {
-			await tx.insert(verdictOverrides).values({ attemptId, mentorId: mentor.id, mentorEmail: mentor.email, verdictBefore: row.verdict, verdictAfter: verdict!, reason });
+			const [override] = await tx
+				.insert(verdictOverrides)
+				.values({ attemptId, mentorId: mentor.id, mentorEmail: mentor.email, verdictBefore: row.verdict, verdictAfter: verdict!, reason })
+				.returning({ id: verdictOverrides.id });
+			const criteria = (row.result?.criteria ?? []) as { verdict: string }[];
+			await recordVerdict(tx, attemptId, { verdict: verdict!, criteria: { passed: criteria.filter((c) => c.verdict === 'pass').length, total: criteria.length }, decidedBy: { kind: 'mentor', mentorId: mentor.id, overrideId: override.id } }, now);
 			await recordAudit(tx, mentor, {
 				action: 'verdict.override',
 				subject: `${row.email}: ${row.assignment}`,
@@ -155,5 +163,7 @@ export async function saveReview(mentor: Mentor, attemptId: string, input: Revie
 		await tx.execute(notifyAttemptSql(attemptId));
 		return { ok: true, first: row.reviewState === 'open', verdict, changed, learner: { email: row.email, name: row.name }, assignment: row.assignment } as const;
 	});
+	if (saved.ok) deliverSoon();
+	return saved;
 }
 
