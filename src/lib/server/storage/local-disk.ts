@@ -3,7 +3,7 @@ import { randomBytes } from 'node:crypto';
 import { mkdir, open, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
 import { Readable } from 'node:stream';
-import { checkKey, type FileStore } from './store';
+import { checkKey, checkRange, type FileStore } from './store';
 
 export function createLocalDiskStore(root: string): FileStore {
 	const base = resolve(root);
@@ -46,6 +46,28 @@ export function createLocalDiskStore(root: string): FileStore {
 				}
 				const stream = handle.createReadStream({ autoClose: true });
 				return { body: Readable.toWeb(stream) as ReadableStream<Uint8Array>, size: info.size };
+			} catch (error) {
+				await handle.close();
+				throw error;
+			}
+		},
+		async openRange(key, start, end) {
+			checkRange(start, end);
+			const handle = await open(pathOf(key), 'r').catch((error: NodeJS.ErrnoException) => {
+				if (error.code === 'ENOENT' || error.code === 'EISDIR') return null;
+				throw error;
+			});
+			if (!handle) return null;
+			try {
+				const info = await handle.stat();
+				if (!info.isFile()) {
+					await handle.close();
+					return null;
+				}
+				// a range past the end reads what there is, as S3 does
+				const last = Math.min(end, info.size - 1);
+				const stream = handle.createReadStream({ start, end: last, autoClose: true });
+				return { body: Readable.toWeb(stream) as ReadableStream<Uint8Array>, size: Math.max(0, last - start + 1) };
 			} catch (error) {
 				await handle.close();
 				throw error;
