@@ -61,7 +61,7 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 	await boss.schedule(SWEEP_QUEUE, SWEEP_CRON);
 	const sweepId = await boss.work(SWEEP_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async () => {
 		const report = await sweepUploads();
-		if (report.uploads || report.strayFiles || report.orphanAttemptFolders) console.log('[worker] swept uploads', report);
+		if (report.uploads || report.strayFiles || report.orphanAttemptFolders || report.clips) console.log('[worker] swept uploads', report);
 		return report;
 	});
 

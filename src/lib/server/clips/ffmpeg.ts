@@ -34,7 +34,7 @@ export function runTool(command: string, args: string[], options: { timeoutMs: n
 		let stderr = '';
 		let pending = '';
 		const timer = setTimeout(() => child.kill('SIGKILL'), options.timeoutMs);
-		child.stdout.setEncoding('utf8').on('data', (chunk: string) => {
+		child.stdout!.setEncoding('utf8').on('data', (chunk: string) => {
 			if (stdout.length < 1_000_000) stdout += chunk;
 			if (!options.onLine) return;
 			pending += chunk;
@@ -43,7 +43,7 @@ export function runTool(command: string, args: string[], options: { timeoutMs: n
 			for (const line of lines) options.onLine(line);
 		});
 		// keep the end of stderr only: its last lines say why ffmpeg stopped
-		child.stderr.setEncoding('utf8').on('data', (chunk: string) => (stderr = (stderr + chunk).slice(-8000)));
+		child.stderr!.setEncoding('utf8').on('data', (chunk: string) => (stderr = (stderr + chunk).slice(-8000)));
 		if (options.input && child.stdin) {
 			child.stdin.on('error', () => undefined);
 			options.input.pipe(child.stdin);
