@@ -17,6 +17,7 @@ import { clipKey } from '$lib/server/clips/keys';
 import { transcodeClip } from '$lib/server/clips/transcode-job';
 import { createClip, findClip } from '$lib/server/clips/records';
 import { makeTestVideo } from '$lib/server/clips/test-video';
+import { DEMO_CLIP, seedDemoClip } from '$lib/server/clips/demo';
 import { POST as createUpload } from '../../src/routes/api/v1/uploads/+server';
 import { PATCH } from '../../src/routes/api/v1/uploads/[id]/+server';
 import { POST as addClip } from '../../src/routes/api/v1/author/clips/+server';
@@ -259,4 +260,13 @@ describe('lesson clips', () => {
 		expect(report.clips).toBeGreaterThanOrEqual(1);
 		expect(await fileStore().get(clipKey(orphan, '720.mp4'))).toBeNull();
 	}, 60_000);
+
+	test('the demo clip is seeded once: seeding again keeps it, ready in its lesson with both renditions', async () => {
+		expect(['made', 'kept']).toContain(await seedDemoClip(db));
+		expect(await seedDemoClip(db)).toBe('kept');
+		const [demo] = await db.select().from(lessonClips).where(eq(lessonClips.name, DEMO_CLIP.name));
+		expect(demo).toMatchObject({ status: 'ready' });
+		expect(demo.renditions.map((r) => r.height)).toEqual([540, 360]);
+		expect(await storedKeys(demo.id)).toHaveLength(3);
+	}, 120_000);
 });
