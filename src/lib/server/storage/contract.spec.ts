@@ -237,6 +237,7 @@ for (const backend of [localBackend(), s3Backend()]) {
 				await expect(store.put(bad, Buffer.from('x')), bad).rejects.toThrow(RangeError);
 				await expect(store.get(bad), bad).rejects.toThrow(RangeError);
 				await expect(store.open(bad), bad).rejects.toThrow(RangeError);
+				await expect(store.openRange(bad, 0, 1), bad).rejects.toThrow(RangeError);
 				await expect(store.deletePrefix(bad), bad).rejects.toThrow(RangeError);
 			}
 		});
