@@ -1,15 +1,13 @@
 // An author adds a clip in the browser: the video goes up, is prepared with progress, is placed by its tag, shows in the
 // preview and, once the lesson is published, plays for a reader with its captions.
 import { expect, test, type Page } from '@playwright/test';
-import { readFileSync } from 'node:fs';
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runTool } from '../../src/lib/server/clips/ffmpeg';
+import { demoAccount } from './support/screens';
 
-type Demo = { role: string; email: string; password: string };
-const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
-const author = demo.find((d) => d.role === 'author')!;
+const author = demoAccount('author');
 
 let dir = '';
 test.beforeAll(async () => {

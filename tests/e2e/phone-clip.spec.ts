@@ -1,14 +1,10 @@
 // On a phone: an enrolled learner plays the demo lesson's clip (the smaller rendition, captions on, a captions button);
 // a visitor and a learner who has not paid get no clip at all, and the clip's address refuses them.
 import { expect, test } from '@playwright/test';
-import { readFileSync } from 'node:fs';
 import postgres from 'postgres';
+import { COURSE, demoAccount } from './support/screens';
 
-type Demo = { role: string; email: string; password: string };
-const demo: Demo[] = JSON.parse(readFileSync('scripts/demo-accounts.json', 'utf8'));
-const learner = demo.find((d) => d.role === 'learner')!;
-
-const COURSE = 'daylight-flash-for-action';
+const learner = demoAccount('learner');
 const LESSON_PATH = `/courses/${COURSE}/metering-and-going-under`;
 const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:54329/stopwise', { max: 2, onnotice: () => {} });
 let learnerId = '';
