@@ -241,6 +241,19 @@ function ensureFrameDecoders() {
 	aptInstall(missing);
 }
 
+/**
+ * Debian's ffmpeg (ffmpeg and ffprobe): lesson clips are transcoded by it, and the seed renders the demo clip with it.
+ * Without root `npm start` carries on: clips then fail with a message saying ffmpeg is missing, the demo clip is left out.
+ */
+function ensureFfmpeg() {
+	if (onPath('ffmpeg') && onPath('ffprobe')) return;
+	if (!isRoot && mode === 'start') {
+		log('lesson clips cannot be transcoded until the Debian package ffmpeg is installed');
+		return;
+	}
+	aptInstall(['ffmpeg']);
+}
+
 function ensureChromium() {
 	const path = env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 	if (existsSync(path)) return;
@@ -295,6 +308,7 @@ async function main() {
 	if (!dbName) fail(`unknown mode ${mode}`);
 	await ensureDatabase(dbName);
 	ensureFrameDecoders();
+	ensureFfmpeg();
 	env.STOPWISE_DATA_DIR ??= join(root, '.data', mode === 'start' ? 'files' : `files-${mode}`);
 	log('applying migrations');
 	tsx('scripts/migrate.ts');

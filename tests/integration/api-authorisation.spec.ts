@@ -45,6 +45,15 @@ const expectations: Record<string, Record<string, Expectation>> = {
 	'/api/v1/author/spec-check': { POST: { status: authorsNoBody } },
 	'/api/v1/author/images': { POST: { status: authorsNoBody } },
 	'/api/v1/author/spec-trial': { POST: { status: authorsNoBody } },
+	'/api/v1/author/clips': { POST: { status: authorsNoBody } },
+	// a missing clip: 404 for authors, the role check first for everyone else
+	'/api/v1/author/clips/[id]': Object.fromEntries(
+		['GET', 'DELETE'].map((m) => [m, { path: `/api/v1/author/clips/${'0'.repeat(8)}-0000-4000-8000-${'0'.repeat(12)}`, params: { id: `${'0'.repeat(8)}-0000-4000-8000-${'0'.repeat(12)}` }, status: { anonymous: 401, learner: 403, mentor: 403, author: 404, admin: 404 } }])
+	),
+	// a clip's files answer by the lesson's access rule; a missing clip is missing for everyone (lesson-clips.spec covers the rest)
+	'/api/v1/clips/[id]/[file]': {
+		GET: { path: `/api/v1/clips/${'0'.repeat(8)}-0000-4000-8000-${'0'.repeat(12)}/720.mp4`, params: { id: `${'0'.repeat(8)}-0000-4000-8000-${'0'.repeat(12)}`, file: '720.mp4' }, status: { anonymous: 404, learner: 404, mentor: 404, author: 404, admin: 404 } }
+	},
 	// public (the provider calls it with no session), but an unsigned request is refused whoever sends it
 	'/api/v1/payments/webhook': { POST: { status: { anonymous: 400, learner: 400, mentor: 400, author: 400, admin: 400 } } }
 };

@@ -1,5 +1,6 @@
-// Browser only: sends one frame by resumable upload (tus), in parts of UPLOAD_PART_BYTES; a dropped connection is retried
-// and resumes from the last part the server holds, and sending again after a failure resumes too.
+// Browser only: sends one file by resumable upload (tus), in parts of UPLOAD_PART_BYTES; a dropped connection is retried
+// and resumes from the last part the server holds, and sending again after a failure resumes too. Frames of an attempt
+// and lesson clips' videos go this way (the metadata says which).
 import { Upload, type DetailedError } from 'tus-js-client';
 import { UPLOAD_PART_BYTES } from './upload-parts';
 
@@ -28,6 +29,15 @@ function refusalOf(error: Error | DetailedError): { status?: number; message?: s
 }
 
 export function frameSender(file: File, metadata: { assignment: string; frame: string; submissionKey: string }): FrameSender {
+	return resumableSender(file, metadata);
+}
+
+/** A lesson clip's video, for a clip the author has just added (its id). */
+export function clipSender(file: File, clipId: string): FrameSender {
+	return resumableSender(file, { kind: 'clip', clip: clipId });
+}
+
+function resumableSender(file: File, metadata: Record<string, string>): FrameSender {
 	let upload: Upload | null = null;
 	let cancelled = false;
 	let settle: ((result: FrameSendResult) => void) | null = null;

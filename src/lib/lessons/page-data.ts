@@ -14,6 +14,22 @@ export interface AssignmentCard {
 	uploadHref: string | null;
 }
 
+/** One lesson clip as the Clip widget shows it; the addresses are given only to a viewer the lesson's rule lets in. */
+export interface ClipCard {
+	id: string;
+	name: string;
+	title: string;
+	status: 'uploading' | 'queued' | 'transcoding' | 'ready' | 'failed';
+	/** 0–1 while transcoding */
+	progress: number;
+	error: string | null;
+	durationSeconds: number | null;
+	/** largest first; empty until ready */
+	sources: { src: string; type: string; width: number; height: number }[];
+	poster: string | null;
+	captions: string;
+}
+
 /** A learner's saved quiz answers, keyed by quiz id. */
 export type SavedQuizAnswers = Record<string, { answer: string; correct: boolean }>;
 
@@ -29,5 +45,7 @@ export interface LessonPageData {
 	progress: { completed: boolean } | null;
 	quizAnswers: SavedQuizAnswers;
 	assignments: AssignmentCard[];
+	/** the lesson's clips that are ready to play (what `<Clip name>` finds) */
+	clips: ClipCard[];
 	neighbours: { previous: LessonLink | null; next: LessonLink | null; position: number; count: number };
 }

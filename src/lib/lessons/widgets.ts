@@ -16,7 +16,8 @@ export const WIDGET_ATTRIBUTES = {
 	SafetyNote: ['topics'],
 	Quiz: ['id', 'question', 'answer', 'tolerance', 'unit', 'choices'],
 	AssignmentCard: ['slug'],
-	Figure: ['name', 'alt', 'caption']
+	Figure: ['name', 'alt', 'caption'],
+	Clip: ['name']
 } as const satisfies Record<string, readonly string[]>;
 
 export type WidgetName = keyof typeof WIDGET_ATTRIBUTES;

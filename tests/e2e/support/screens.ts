@@ -43,6 +43,7 @@ export function learnerScreens(attemptHref?: string): Screen[] {
 		{ name: 'course', path: `/courses/${COURSE}`, heading: /^Daylight Flash for Action$/ },
 		{ name: 'lesson', path: `/courses/${COURSE}/what-a-stop-is`, heading: /^What a stop is$/ },
 		{ name: 'lesson-with-assignment', path: `/courses/${COURSE}/${LESSON}`, heading: /^Off the camera axis$/ },
+		{ name: 'lesson-with-clip', path: `/courses/${COURSE}/metering-and-going-under`, heading: /^Metering, then going under$/ },
 		{ name: 'upload', path: `/courses/${COURSE}/${LESSON}/assignments/${LESSON}`, heading: /^Off the axis$/ },
 		...(attemptHref ? [{ name: 'verdict', path: attemptHref, heading: /^Off the axis$/ }] : []),
 		{ name: 'progress', path: '/progress', heading: /^Your progress$/ },
@@ -60,10 +61,12 @@ export const mentorScreens: Screen[] = [
 export async function authorScreens(sql: Sql): Promise<Screen[]> {
 	const [lesson] = await sql<{ id: number; title: string }[]>`select id, title from lessons where slug = ${LESSON}`;
 	const [assignment] = await sql<{ id: number }[]>`select id from assignments where slug = ${LESSON}`;
+	const [withClip] = await sql<{ id: number }[]>`select id from lessons where slug = 'metering-and-going-under'`;
 	const escaped = lesson.title.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 	return [
 		{ name: 'author-tree', path: '/author', heading: /^Lessons$/ },
 		{ name: 'author-lesson', path: `/author/lessons/${lesson.id}`, heading: /^Edit lesson$/ },
+		{ name: 'author-lesson-with-clip', path: `/author/lessons/${withClip.id}`, heading: /^Edit lesson$/ },
 		{ name: 'author-history', path: `/author/lessons/${lesson.id}/history`, heading: new RegExp(`^History of “${escaped}”$`) },
 		{ name: 'author-assignment', path: `/author/assignments/${assignment.id}`, heading: /^Assignment$/ },
 		{ name: 'author-new-lesson', path: '/author/lessons/new' },

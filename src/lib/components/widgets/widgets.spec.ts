@@ -21,7 +21,8 @@ const CONTRACT: Record<string, { label: string; attributes: string[] }> = {
 	SafetyNote: { label: 'Safety note', attributes: ['topics'] },
 	Quiz: { label: 'Quiz', attributes: ['id', 'question', 'answer', 'tolerance', 'unit'] },
 	AssignmentCard: { label: 'Assignment', attributes: ['slug'] },
-	Figure: { label: 'Figure', attributes: ['name', 'alt', 'caption'] }
+	Figure: { label: 'Figure', attributes: ['name', 'alt', 'caption'] },
+	Clip: { label: 'Clip', attributes: ['name'] }
 };
 
 const modules = import.meta.glob<{ default: Component<Record<string, string>> }>('./*.svelte', { eager: true });

@@ -16,6 +16,9 @@ export interface GradeJobData {
 export const SWEEP_QUEUE = 'sweep-uploads';
 export const SWEEP_CRON = '23 * * * *';
 
+/** Transcoding of lesson clips (`clips/transcode-job.ts`): one job per clip, its id the clip's. */
+export const TRANSCODE_QUEUE = 'transcode-clip';
+
 export interface QueueOptions {
 	/** Whether this process fires pg-boss cron schedules (the workers' processes do; a process that only sends, not). */
 	schedule?: boolean;
@@ -49,6 +52,8 @@ async function open(options: QueueOptions): Promise<PgBoss> {
 		deadLetter: GRADE_FAILED_QUEUE
 	});
 	await boss.createQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, retryLimit: 1, expireInSeconds: 15 * 60 });
+	// a job is retried only when its worker died (the job itself ends every clip ready or failed); a long clip may take a while
+	await boss.createQueue(TRANSCODE_QUEUE, { name: TRANSCODE_QUEUE, retryLimit: 1, retryDelay: 5, expireInSeconds: 2 * 60 * 60 });
 	return boss;
 }
 

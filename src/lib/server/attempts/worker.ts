@@ -1,4 +1,4 @@
-// Runs grading in this process: pg-boss workers for the grading and dead-letter queues, woken by NOTIFY.
+// Runs the jobs in this process: pg-boss workers for grading and its dead-letter queue, learning records, clip transcoding and the sweep, woken by NOTIFY.
 import { and, eq, lt } from 'drizzle-orm';
 import type PgBoss from 'pg-boss';
 import { client, db } from '../db/index';
@@ -6,7 +6,8 @@ import { attempts } from '../db/schema';
 import { gradeAttempt, markGradingFailed, type GradeOptions } from './grade-job';
 import { sweepUploads } from './uploads/sweep';
 import { startDeliveryWorker } from '../learning-records/worker';
-import { GRADE_FAILED_QUEUE, GRADE_QUEUE, SWEEP_CRON, SWEEP_QUEUE, openQueue, queueGrading, registerLocalWorker, WAKE_CHANNEL, type GradeJobData, type QueueOptions } from './queue';
+import { transcodeClip, type TranscodeJobData } from '../clips/transcode-job';
+import { GRADE_FAILED_QUEUE, GRADE_QUEUE, SWEEP_CRON, SWEEP_QUEUE, TRANSCODE_QUEUE, openQueue, queueGrading, registerLocalWorker, WAKE_CHANNEL, type GradeJobData, type QueueOptions } from './queue';
 
 // a fallback only: a sent job wakes the worker at once
 const POLLING_SECONDS = 2;
@@ -60,14 +61,24 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 	await boss.schedule(SWEEP_QUEUE, SWEEP_CRON);
 	const sweepId = await boss.work(SWEEP_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async () => {
 		const report = await sweepUploads();
-		if (report.uploads || report.strayFiles || report.orphanAttemptFolders) console.log('[worker] swept uploads', report);
+		if (report.uploads || report.strayFiles || report.orphanAttemptFolders || report.clips) console.log('[worker] swept uploads', report);
 		return report;
 	});
 
 	// learning records (xAPI statements) are sent by the same processes that grade
 	const delivery = await startDeliveryWorker(boss);
 
-	const listener = await client.listen(WAKE_CHANNEL, () => boss.notifyWorker(id)).catch((error: unknown) => {
+	// one clip at a time per process: ffmpeg uses every core it is given
+	const transcodeId = await boss.work<TranscodeJobData>(TRANSCODE_QUEUE, { pollingIntervalSeconds: POLLING_SECONDS, batchSize: 1 }, async ([job]) => {
+		const clipId = typeof job.data?.clipId === 'string' ? job.data.clipId : '';
+		return { outcome: clipId ? await transcodeClip(clipId) : 'missing' };
+	});
+	registerLocalWorker(transcodeId);
+
+	const listener = await client.listen(WAKE_CHANNEL, () => {
+		boss.notifyWorker(id);
+		boss.notifyWorker(transcodeId);
+	}).catch((error: unknown) => {
 		console.error('[worker] cannot LISTEN for new jobs; polling only', error instanceof Error ? error.message : error);
 		return null;
 	});
@@ -85,6 +96,7 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 			await boss.offWork({ id: deadId });
 			await boss.offWork({ id: sweepId });
 			await delivery.stop();
+			await boss.offWork({ id: transcodeId });
 		}
 	};
 }

@@ -6,6 +6,7 @@ import type { DraftInput } from '$lib/forms/authoring';
 import { readLessonFileBody } from '../lessons/source';
 import { renderLessonMarkdown } from '../lessons/render';
 import { forgetRenderedLesson, rememberRenderedLesson } from '../lessons/published';
+import { clipProblems } from '../clips/publish-check';
 
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
 
@@ -89,7 +90,8 @@ export async function saveDraft(lessonId: number, authorId: string, input: Draft
  */
 export async function publishDraft(lessonId: number, authorId: string, input: DraftInput): Promise<AuthoringResult> {
 	const rendered = await renderLessonMarkdown(input.body);
-	const { problems } = rendered;
+	// a clip the text places must be this lesson's and ready: learners would otherwise meet a notice instead of the video
+	const problems = [...rendered.problems, ...(await clipProblems(lessonId, rendered.segments))];
 	if (problems.length > 0) {
 		const saved = await saveDraft(lessonId, authorId, { ...input, note: input.note || 'Draft (publishing was refused)' });
 		if (!saved.ok) return saved;

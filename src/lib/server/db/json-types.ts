@@ -13,3 +13,13 @@ export type StoredAnalysis = { ok: true; frame: Frame } | { ok: false; message: 
 export interface StoredResult {
 	criteria: CriterionResult[];
 }
+
+/** One web rendition of a lesson clip, as lesson_clips.renditions holds it: where it is stored and what it is. */
+export interface ClipRendition {
+	/** file name under the clip's folder, also the last part of its address: `720.mp4`, `360.mp4` */
+	file: string;
+	type: 'video/mp4';
+	width: number;
+	height: number;
+	bytes: number;
+}

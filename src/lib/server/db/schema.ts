@@ -1,6 +1,6 @@
 // Drizzle schema: camelCase keys over snake_case columns; row types exported beside each table.
 import { sql } from 'drizzle-orm';
-import type { AssignmentSpecInput, PlanLayout, StoredAnalysis, StoredResult, SubjectBox } from './json-types';
+import type { AssignmentSpecInput, ClipRendition, PlanLayout, StoredAnalysis, StoredResult, SubjectBox } from './json-types';
 import {
 	boolean,
 	index,
@@ -571,3 +571,42 @@ export const learningRecords = pgTable(
 	(t) => [index('learning_records_waiting_idx').on(t.createdAt).where(sql`${t.sentAt} is null`), index('learning_records_sent_idx').on(t.sentAt)]
 );
 export type LearningRecord = typeof learningRecords.$inferSelect;
+
+// ---- lesson clips ----
+/**
+ * A short video placed in a lesson by `<Clip name="…" />`: its title and WebVTT captions, the resumable upload it came
+ * in by, the transcoding's state and progress, and the web renditions stored under `clips/<id>/` in the file store.
+ */
+export const lessonClips = pgTable(
+	'lesson_clips',
+	{
+		/** a random UUID made by the app (also the transcoding job's id) */
+		id: text('id').primaryKey(),
+		lessonId: integer('lesson_id')
+			.notNull()
+			.references(() => lessons.id, { onDelete: 'cascade' }),
+		/** the name the widget tag uses; unique within its lesson */
+		name: text('name').notNull(),
+		title: text('title').notNull(),
+		/** WebVTT text, checked when the clip is added */
+		captions: text('captions').notNull(),
+		status: text('status', { enum: ['uploading', 'queued', 'transcoding', 'ready', 'failed'] }).notNull().default('uploading'),
+		/** 0–1 while transcoding, from ffmpeg's -progress */
+		progress: real('progress').notNull().default(0),
+		/** why transcoding failed, in the author's words */
+		error: text('error'),
+		/** the tus upload id while the source is on its way or waiting to be transcoded; null once it is used */
+		uploadId: text('upload_id').unique(),
+		uploadSize: integer('upload_size'),
+		durationSeconds: real('duration_seconds'),
+		renditions: jsonb('renditions').$type<ClipRendition[]>().notNull().default([]),
+		/** the poster frame's file name under the clip's folder */
+		poster: text('poster'),
+		createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [uniqueIndex('lesson_clips_name_idx').on(t.lessonId, t.name)]
+);
+export type LessonClip = typeof lessonClips.$inferSelect;
+// ---- end lesson clips ----

@@ -153,6 +153,29 @@ for (const backend of [localBackend(), s3Backend()]) {
 			expect(sha256((await store.get(key))!)).toBe(sha256(data));
 		});
 
+		it('reads a byte range: the first byte, a middle part, the last byte, and a range running past the end', async () => {
+			const key = `clips/${attemptId}/720.mp4`;
+			const data = randomBytes(3 * 1024 * 1024 + 5);
+			await store.put(key, data);
+			const read = async (start: number, end: number) => {
+				const opened = await store.openRange(key, start, end);
+				const chunks: Uint8Array[] = [];
+				for await (const chunk of opened!.body as unknown as AsyncIterable<Uint8Array>) chunks.push(chunk);
+				return { size: opened!.size, bytes: Buffer.concat(chunks) };
+			};
+			expect(await read(0, 0)).toEqual({ size: 1, bytes: data.subarray(0, 1) });
+			const middle = await read(1_000_000, 2_000_000);
+			expect(middle.size).toBe(1_000_001);
+			expect(sha256(middle.bytes)).toBe(sha256(data.subarray(1_000_000, 2_000_001)));
+			expect(await read(data.length - 1, data.length - 1)).toEqual({ size: 1, bytes: data.subarray(data.length - 1) });
+			const tail = await read(data.length - 10, data.length + 100);
+			expect(tail.bytes.equals(data.subarray(data.length - 10))).toBe(true);
+			expect(tail.size).toBe(10);
+			expect(await store.openRange(`clips/${attemptId}/360.mp4`, 0, 9)).toBeNull();
+			await expect(store.openRange(key, 5, 4)).rejects.toThrow(RangeError);
+			await store.deletePrefix(`clips/${attemptId}`);
+		});
+
 		it('a missing key reads as null, opens as null, and deletes quietly', async () => {
 			const key = `attempts/${attemptId}/0-original.jpg`;
 			expect(await store.get(key)).toBeNull();
@@ -214,6 +237,7 @@ for (const backend of [localBackend(), s3Backend()]) {
 				await expect(store.put(bad, Buffer.from('x')), bad).rejects.toThrow(RangeError);
 				await expect(store.get(bad), bad).rejects.toThrow(RangeError);
 				await expect(store.open(bad), bad).rejects.toThrow(RangeError);
+				await expect(store.openRange(bad, 0, 1), bad).rejects.toThrow(RangeError);
 				await expect(store.deletePrefix(bad), bad).rejects.toThrow(RangeError);
 			}
 		});

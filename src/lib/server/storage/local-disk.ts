@@ -3,7 +3,34 @@ import { randomBytes } from 'node:crypto';
 import { mkdir, open, readdir, readFile, rename, rm, stat, writeFile } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
 import { Readable } from 'node:stream';
-import { checkKey, type FileStore } from './store';
+import { checkKey, checkRange, type FileStore, type StoredStream } from './store';
+
+/**
+ * A file's bytes as a stream with their length; with a range, bytes `start` to `end` (a range past the end reads what
+ * there is, as S3 does). The size and the stream come from one open file, so a put renamed over it meanwhile cannot mix them.
+ */
+async function openFile(path: string, range?: { start: number; end: number }): Promise<StoredStream | null> {
+	const handle = await open(path, 'r').catch((error: NodeJS.ErrnoException) => {
+		if (error.code === 'ENOENT' || error.code === 'EISDIR') return null;
+		throw error;
+	});
+	if (!handle) return null;
+	try {
+		const info = await handle.stat();
+		if (!info.isFile()) {
+			await handle.close();
+			return null;
+		}
+		const start = range?.start ?? 0;
+		const last = Math.min(range?.end ?? info.size - 1, info.size - 1);
+		// an empty file or a range wholly past the end reads nothing, and the stream still ends and closes the file
+		const stream = handle.createReadStream({ start, end: Math.max(start, last), autoClose: true });
+		return { body: Readable.toWeb(stream) as ReadableStream<Uint8Array>, size: Math.max(0, last - start + 1) };
+	} catch (error) {
+		await handle.close();
+		throw error;
+	}
+}
 
 export function createLocalDiskStore(root: string): FileStore {
 	const base = resolve(root);
@@ -32,24 +59,11 @@ export function createLocalDiskStore(root: string): FileStore {
 			}
 		},
 		async open(key) {
-			// the size and the stream come from one open file, so a put renamed over it meanwhile cannot mix them
-			const handle = await open(pathOf(key), 'r').catch((error: NodeJS.ErrnoException) => {
-				if (error.code === 'ENOENT' || error.code === 'EISDIR') return null;
-				throw error;
-			});
-			if (!handle) return null;
-			try {
-				const info = await handle.stat();
-				if (!info.isFile()) {
-					await handle.close();
-					return null;
-				}
-				const stream = handle.createReadStream({ autoClose: true });
-				return { body: Readable.toWeb(stream) as ReadableStream<Uint8Array>, size: info.size };
-			} catch (error) {
-				await handle.close();
-				throw error;
-			}
+			return openFile(pathOf(key));
+		},
+		async openRange(key, start, end) {
+			checkRange(start, end);
+			return openFile(pathOf(key), { start, end });
 		},
 		async delete(key) {
 			await rm(pathOf(key), { force: true });

@@ -8,6 +8,11 @@ export interface FileStore {
 	get(key: string): Promise<Buffer | null>;
 	/** The bytes as a stream with their length, for serving without holding the file in memory; null when missing. */
 	open(key: string): Promise<StoredStream | null>;
+	/**
+	 * Bytes `start` to `end` (both included, as in an HTTP Range) as a stream, for range requests: `size` is the length of
+	 * that part. The caller knows the value's length and asks only within it; null when nothing is stored under `key`.
+	 */
+	openRange(key: string, start: number, end: number): Promise<StoredStream | null>;
 	/** Removes one key; removing a missing key is not an error. */
 	delete(key: string): Promise<void>;
 	/** Removes every key under `prefix/` (an attempt's folder); a missing prefix is not an error. */
@@ -23,6 +28,11 @@ export interface FileStore {
 export interface StoredStream {
 	body: ReadableStream<Uint8Array>;
 	size: number;
+}
+
+/** Throws unless `start`–`end` is a range of at least one byte (both included). */
+export function checkRange(start: number, end: number): void {
+	if (!Number.isSafeInteger(start) || !Number.isSafeInteger(end) || start < 0 || end < start) throw new RangeError(`invalid byte range: ${start}-${end}`);
 }
 
 const SEGMENT = /^[A-Za-z0-9][A-Za-z0-9._-]{0,127}$/;

@@ -1,6 +1,7 @@
 // Sweeps what uploads leave behind: expired or already-used resumable uploads (rows and bytes), bytes with no row,
 // temporary folders of one-request uploads, and attempt folders in the file store that no stored attempt owns (a
-// process that died between writing the files and committing the rows). Run by the pg-boss job in `worker.ts`.
+// process that died between writing the files and committing the rows); for lesson clips, clips whose video never
+// finished arriving and clip folders no clip owns (a clip or lesson deleted while its job ran). Run by the pg-boss job in `worker.ts`.
 import { readdir, rm, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { inArray } from 'drizzle-orm';
@@ -8,6 +9,8 @@ import { db } from '../../db/index';
 import { attempts, frameUploads } from '../../db/schema';
 import { fileStore } from '../../storage/index';
 import { attemptFolder } from '../keys';
+import { clipFolder, isClipId } from '../../clips/keys';
+import { abandonedClips, deleteClipRow, existingClipIds, knownClipUploads } from '../../clips/records';
 import { isUploadId, removeUploadFiles, uploadDir } from './folder';
 import { deleteUploadRows, sweepableUploads } from './records';
 import { UPLOAD_TTL_MS } from './tus';
@@ -19,15 +22,24 @@ export interface SweepReport {
 	uploads: number;
 	strayFiles: number;
 	orphanAttemptFolders: number;
+	clips: number;
 }
 
 export async function sweepUploads(now = new Date(), ttlMs = UPLOAD_TTL_MS, inFlightMs = IN_FLIGHT_MS): Promise<SweepReport> {
-	const report: SweepReport = { uploads: 0, strayFiles: 0, orphanAttemptFolders: 0 };
+	const report: SweepReport = { uploads: 0, strayFiles: 0, orphanAttemptFolders: 0, clips: 0 };
 
 	const stale = await sweepableUploads(new Date(now.getTime() - ttlMs));
 	for (const { id } of stale) await removeUploadFiles(id);
 	await deleteUploadRows(stale.map((r) => r.id));
 	report.uploads = stale.length;
+
+	// a clip whose video never finished arriving: the clip goes with its bytes (the author adds it again)
+	const abandoned = await abandonedClips(new Date(now.getTime() - ttlMs));
+	for (const clip of abandoned) {
+		if (clip.uploadId) await removeUploadFiles(clip.uploadId);
+		await deleteClipRow(clip.id);
+	}
+	report.clips = abandoned.length + (await sweepOrphanClipFolders(now, inFlightMs));
 
 	report.strayFiles = await sweepStrayUploadFiles(now, ttlMs, inFlightMs);
 	report.orphanAttemptFolders = await sweepOrphanAttemptFolders(now, inFlightMs);
@@ -43,6 +55,7 @@ async function sweepStrayUploadFiles(now: Date, ttlMs: number, inFlightMs: numbe
 	for (let i = 0; i < ids.length; i += 500) {
 		const rows = await db.select({ id: frameUploads.id }).from(frameUploads).where(inArray(frameUploads.id, ids.slice(i, i + 500)));
 		for (const r of rows) known.add(r.id);
+		for (const id of await knownClipUploads(ids.slice(i, i + 500))) known.add(id);
 	}
 	let removed = 0;
 	for (const id of ids) {
@@ -75,6 +88,22 @@ async function sweepOrphanAttemptFolders(now: Date, inFlightMs: number): Promise
 		for (const name of batch) {
 			if (owned.has(name)) continue;
 			await store.deletePrefix(attemptFolder(name));
+			removed++;
+		}
+	}
+	return removed;
+}
+
+async function sweepOrphanClipFolders(now: Date, inFlightMs: number): Promise<number> {
+	const store = fileStore();
+	const folders = (await store.listFolders('clips')).filter((f) => isClipId(f.name) && now.getTime() - f.modifiedAt.getTime() > inFlightMs);
+	let removed = 0;
+	for (let i = 0; i < folders.length; i += 500) {
+		const batch = folders.slice(i, i + 500).map((f) => f.name);
+		const owned = await existingClipIds(batch);
+		for (const name of batch) {
+			if (owned.has(name)) continue;
+			await store.deletePrefix(clipFolder(name));
 			removed++;
 		}
 	}

@@ -1,5 +1,6 @@
 // The resumable upload endpoint (tus protocol, @tus/server on a file store): who may start, resume or cancel an upload,
-// and the limits: a known size up to the frame limit, only the assignment's own frames, one upload per frame.
+// and the limits: a known size up to the frame limit, only the assignment's own frames, one upload per frame. A lesson
+// clip's video comes in by the same endpoint (Upload-Metadata `kind: clip`), checked by `clips/upload.ts`.
 import { randomBytes } from 'node:crypto';
 import { Server, type Upload } from '@tus/server';
 import { FileStore } from '@tus/file-store';
@@ -9,7 +10,10 @@ import { planGateMessage } from '../../shoot-plans/read';
 import { findAssignment } from '../assignment';
 import { maxUploadBytes } from '../limits';
 import { existingAttemptId } from '../submit';
+import { clipLimits } from '../../clips/limits';
+import { clipTooLarge, finishClipUpload, isClipUpload, mayResumeClipUpload, startClipUpload } from '../../clips/upload';
 import { removeUploadFiles, uploadDir } from './folder';
+import { refusal, type Refusal } from './refusal';
 import { readUploadMetadata } from './metadata';
 import { deleteUploadRows, findUpload, markFinished, otherOpenSubmissions, recordUpload, uploadsOfSubmission } from './records';
 
@@ -20,12 +24,7 @@ export const UPLOAD_TTL_MS = 24 * 60 * 60 * 1000;
 const OPEN_SUBMISSIONS = 3;
 
 type Uploader = Pick<AuthUser, 'id' | 'roles'>;
-type Refusal = { status_code: number; body: string };
-
-/** A refusal the upload page shows as it is: a JSON body with a message in the learner's words. */
-export function refusal(status: number, error: string, message: string): Refusal {
-	return { status_code: status, body: JSON.stringify({ error, message }) };
-}
+export { refusal };
 
 function tooLarge(size: number): Refusal {
 	const mb = (bytes: number) => Math.round(bytes / 2 ** 20);
@@ -43,6 +42,10 @@ function uploaderOf(req: Request): Uploader {
 
 async function checkStart(req: Request, upload: Upload): Promise<{ metadata?: Upload['metadata'] }> {
 	const user = uploaderOf(req);
+	if (isClipUpload(upload.metadata)) {
+		await startClipUpload(user, upload);
+		return {};
+	}
 	const meta = readUploadMetadata(upload.metadata);
 	if (!meta.ok) throw refusal(400, 'bad-request', meta.message);
 	if (upload.size === undefined) throw refusal(400, 'bad-request', 'Say the size of the frame when the upload starts (Upload-Length).');
@@ -85,6 +88,7 @@ async function checkOwner(req: Request, id: string): Promise<void> {
 	const user = uploaderOf(req);
 	if (req.method === 'POST') return;
 	const row = await findUpload(id);
+	if (!row && (await mayResumeClipUpload(user, id))) return;
 	if (!row || row.userId !== user.id) throw refusal(404, 'not-found', 'This upload is not (or no longer) here. Send the frame again.');
 }
 
@@ -93,20 +97,25 @@ function createServer(): Server {
 		path: UPLOAD_PATH,
 		relativeLocation: true,
 		datastore: new FileStore({ directory: uploadDir(), expirationPeriodInMilliseconds: UPLOAD_TTL_MS }),
-		maxSize: () => maxUploadBytes(),
+		// the larger of the two limits: each kind checks its own when the upload starts
+		maxSize: () => Math.max(maxUploadBytes(), clipLimits().bytes),
 		// same origin only: no CORS headers for anyone
 		allowedOrigins: () => false,
 		namingFunction: () => randomBytes(16).toString('hex'),
 		onIncomingRequest: checkOwner,
 		onUploadCreate: checkStart,
 		async onUploadFinish(_req, upload) {
+			if (isClipUpload(upload.metadata) && (await finishClipUpload(upload.id))) return {};
 			await markFinished(upload.id);
 			return {};
 		},
 		onResponseError(req, error) {
 			if ('status_code' in error) {
 				// tus checks the declared length against maxSize before our own check: answer in the same words
-				if (error.status_code === 413 && !error.body.startsWith('{')) return tooLarge(Number(req.headers.get('upload-length')) || maxUploadBytes() + 1);
+				if (error.status_code === 413 && !error.body.startsWith('{')) {
+					const size = Number(req.headers.get('upload-length')) || Number.MAX_SAFE_INTEGER;
+					return /(^|,)\s*kind\s/.test(req.headers.get('upload-metadata') ?? '') ? clipTooLarge(size) : tooLarge(size);
+				}
 				return undefined;
 			}
 			console.error('[uploads]', error.message);

@@ -9,6 +9,7 @@ import { deleteDraftLesson, openLessonForEditing, saveLessonSettings } from '$li
 import { publishDraft, saveDraft, unpublishLesson } from '$lib/server/authoring/versions';
 import { renderLessonMarkdown } from '$lib/server/lessons/render';
 import { checkSpecText } from '$lib/server/authoring/assignments';
+import { lessonClipCards } from '$lib/server/clips/view';
 import { draftSchema, settingsSchema, type DraftInput, type DraftNotice } from '$lib/forms/authoring';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -48,6 +49,8 @@ export const load: PageServerLoad = async (event) => {
 			const described = checkSpecText(JSON.stringify(a.spec));
 			return { id: a.id, slug: a.slug, title: a.title, brief: a.brief, frames: described.frames, criteria: described.criteria };
 		}),
+		// what <Clip> reads in the preview, every clip with its state (the Clips panel lists them too)
+		clips: await lessonClipCards(lesson.id, { readyOnly: false }),
 		// tells the Quiz widget not to store answers given in the preview
 		lessonPreview: true,
 		draftForm,

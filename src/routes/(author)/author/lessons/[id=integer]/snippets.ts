@@ -15,7 +15,8 @@ export const WIDGET_SNIPPETS: Record<WidgetName, string> = {
 	SafetyNote: '<SafetyNote topics="stands,eyes" />',
 	Quiz: '<Quiz id="question-1" question="Write the question here (no double quotes)" answer="1" tolerance="0" unit="" />',
 	AssignmentCard: '<AssignmentCard slug="assignment-slug" />',
-	Figure: '<Figure name="dim-and-relight" alt="Say what the picture shows (no double quotes)" caption="What to notice" />'
+	Figure: '<Figure name="dim-and-relight" alt="Say what the picture shows (no double quotes)" caption="What to notice" />',
+	Clip: '<Clip name="clip-name" />'
 };
 
 /** Puts `text` at the cursor as a block of its own: blank lines around it, so a widget stands on its own line. */
