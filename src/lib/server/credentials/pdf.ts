@@ -9,15 +9,15 @@ import { subjectName, type OpenBadgeCredential } from './document';
 
 // the fonts the pages ship with (npm packages), found from the project folder, in the built app as in tests
 const fromProject = createRequire(join(process.cwd(), 'package.json'));
+// (the static JetBrains Mono cuts in WOFF: fontkit's subsetter fails on the variable Inter WOFF2 the page text uses)
 const FONT_FILES = {
-	// WOFF2 is read by fontkit; the variable font is embedded whole (its subsetter cannot cut variable fonts)
-	body: '@fontsource-variable/inter/files/inter-latin-wght-normal.woff2',
-	mono: '@fontsource/jetbrains-mono/files/jetbrains-mono-latin-400-normal.woff'
+	heading: '@fontsource/jetbrains-mono/files/jetbrains-mono-latin-600-normal.woff',
+	body: '@fontsource/jetbrains-mono/files/jetbrains-mono-latin-400-normal.woff'
 };
 
-let fonts: Promise<{ body: Uint8Array; mono: Uint8Array }> | null = null;
+let fonts: Promise<{ heading: Uint8Array; body: Uint8Array }> | null = null;
 function fontBytes() {
-	fonts ??= Promise.all([readFile(fromProject.resolve(FONT_FILES.body)), readFile(fromProject.resolve(FONT_FILES.mono))]).then(([body, mono]) => ({ body, mono }));
+	fonts ??= Promise.all([readFile(fromProject.resolve(FONT_FILES.heading)), readFile(fromProject.resolve(FONT_FILES.body))]).then(([heading, body]) => ({ heading, body }));
 	return fonts;
 }
 
@@ -61,8 +61,10 @@ export async function certificatePdf(credential: OpenBadgeCredential, verifyUrl:
 	const doc = await PDFDocument.create();
 	doc.registerFontkit(fontkit);
 	const bytes = await fontBytes();
-	const body = await doc.embedFont(bytes.body, { subset: false });
-	const mono = await doc.embedFont(bytes.mono, { subset: true });
+	// the font's code ligatures (//, ->) off: a certificate is prose, and fontkit's subsetter fails on those glyphs
+	const features = { calt: false, liga: false };
+	const heading = await doc.embedFont(bytes.heading, { subset: true, features });
+	const body = await doc.embedFont(bytes.body, { subset: true, features });
 	const title = credential.credentialSubject.achievement.name;
 	doc.setTitle(title);
 	doc.setAuthor(credential.issuer.name);
@@ -78,12 +80,14 @@ export async function certificatePdf(credential: OpenBadgeCredential, verifyUrl:
 	page.drawRectangle({ x: margin + 120, y: height - margin - 6, width: 60, height: 6, color: COBALT });
 
 	let y = height - margin - 48;
-	page.drawText('Certificate of completion', { x: margin, y, size: 30, font: body, color: INK });
+	page.drawText('Certificate of completion', { x: margin, y, size: 28, font: heading, color: INK });
 	y -= 44;
 	page.drawText('This certifies that', { x: margin, y, size: 13, font: body, color: MUTED });
 	y -= 34;
-	page.drawText(subjectName(credential), { x: margin, y, size: 26, font: body, color: INK });
-	y -= 30;
+	for (const line of wrap(subjectName(credential), heading, 24, width - margin * 2)) {
+		page.drawText(line, { x: margin, y, size: 24, font: heading, color: INK });
+		y -= 30;
+	}
 	page.drawText('completed the course', { x: margin, y, size: 13, font: body, color: MUTED });
 	y -= 28;
 	const courseTitle = title.replace(/^Certificate of completion: /, '');
@@ -99,7 +103,7 @@ export async function certificatePdf(credential: OpenBadgeCredential, verifyUrl:
 
 	const issued = new Intl.DateTimeFormat('en-GB', { dateStyle: 'long', timeZone: 'UTC' }).format(new Date(credential.validFrom));
 	page.drawText(`Issued by ${credential.issuer.name} on ${issued}`, { x: margin, y: margin + 30, size: 12, font: body, color: INK });
-	page.drawText(`Check it is genuine: ${verifyUrl}`, { x: margin, y: margin + 12, size: 8, font: mono, color: MUTED });
+	page.drawText(`Check it is genuine: ${verifyUrl}`, { x: margin, y: margin + 12, size: 8, font: body, color: MUTED });
 
 	const qrSize = 120;
 	drawQr(page, verifyUrl, width - margin - qrSize, margin, qrSize);
