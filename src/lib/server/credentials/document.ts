@@ -55,6 +55,18 @@ export interface CredentialFacts {
 
 export const issuerId = (origin: string) => `${origin}/credentials/issuer`;
 
+/** The issuer as the issuer URL serves it: the credential's `issuer`, plus where the keys are. */
+export function issuerProfile(origin: string) {
+	return {
+		'@context': [VC_CONTEXT, OB_CONTEXT],
+		id: issuerId(origin),
+		type: ['Profile'],
+		name: SCHOOL_NAME,
+		url: origin,
+		description: 'An online school for lighting moving people with flash in daylight. Certificates are signed with EdDSA (Ed25519); the keys are at /.well-known/jwks.json.'
+	};
+}
+
 /**
  * What the certificate stands for, in our own words: what was measured from the learner's files, not that pages were
  * read. Named Assignments are those that counted.

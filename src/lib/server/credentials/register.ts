@@ -1,8 +1,9 @@
 // The register of issued certificates: the admin's list, revoking one (with its audit line), and a learner's own.
-import { and, desc, eq, isNull } from 'drizzle-orm';
+import { and, desc, eq, isNull, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { courses, issuedCredentials, users } from '../db/schema';
 import { recordAudit, type Actor } from '../audit';
+import { courseStanding } from './eligibility';
 
 export const REGISTER_PAGE_SIZE = 200;
 
@@ -72,4 +73,35 @@ export async function credentialFor(user: { id: string; roles: readonly string[]
 		.limit(1);
 	if (!row || (row.userId !== user.id && !user.roles.includes('admin'))) return null;
 	return row;
+}
+
+/** The learner's certificate panel: for each course they have started, where they stand and the certificate if issued. */
+export async function certificatePanel(userId: string) {
+	const started = await db
+		.selectDistinct({ slug: courses.slug })
+		.from(courses)
+		.where(
+			sql`${courses.published} and exists (select 1 from lesson_progress lp join lessons l on l.id = lp.lesson_id join modules m on m.id = l.module_id where lp.user_id = ${userId} and m.course_id = ${courses.id})`
+		);
+	const panels = await Promise.all(
+		started.map(async ({ slug }) => {
+			const standing = await courseStanding(userId, slug);
+			if (!standing) return null;
+			const [issued] = await db
+				.select({ id: issuedCredentials.id, issuedAt: issuedCredentials.issuedAt, revokedAt: issuedCredentials.revokedAt })
+				.from(issuedCredentials)
+				.where(and(eq(issuedCredentials.userId, userId), eq(issuedCredentials.courseId, standing.courseId)))
+				.limit(1);
+			return {
+				course: { slug: standing.courseSlug, title: standing.courseTitle },
+				lessons: standing.lessons,
+				passed: standing.counted.filter((a) => a.passed).length,
+				counted: standing.counted.length,
+				required: standing.required,
+				eligible: standing.eligible,
+				issued: issued ? { id: issued.id, issuedAt: issued.issuedAt.toISOString(), revokedAt: issued.revokedAt?.toISOString() ?? null } : null
+			};
+		})
+	);
+	return panels.filter((p) => p !== null);
 }
