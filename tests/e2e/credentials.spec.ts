@@ -63,6 +63,13 @@ test('a learner who finished the demo course downloads a PDF and a credential th
 	const token = jwt.bytes.toString('utf8');
 	expect(token.split('.')).toHaveLength(3);
 
+	// what an outside verifier fetches: the key set its header's kid points into, and the issuer profile
+	const kid = (JSON.parse(Buffer.from(token.split('.')[0], 'base64url').toString('utf8')) as { kid: string }).kid;
+	const jwks = (await (await page.request.get('/.well-known/jwks.json')).json()) as { keys: { kid: string; d?: string }[] };
+	expect(jwks.keys.map((k) => k.kid)).toContain(kid);
+	expect(jwks.keys.some((k) => k.d)).toBe(false);
+	expect(await (await page.request.get('/credentials/issuer')).json()).toMatchObject({ type: ['Profile'], name: 'Stopwise' });
+
 	// the certificate's own page (where the PDF's QR code leads)
 	await card.getByTestId('certificate-page').click();
 	await expect(page).toHaveURL(/\/verify\/credential\/[0-9a-f-]{36}$/);
