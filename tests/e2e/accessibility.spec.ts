@@ -26,7 +26,8 @@ const sql = postgres(process.env.DATABASE_URL ?? 'postgres://stopwise@127.0.0.1:
 // signed-in sessions, one per role for the whole run (test-results is emptied at the start of each run)
 const STATES = join('test-results', 'accessibility-sessions');
 
-test.describe.configure({ timeout: 120_000 });
+// generous: a walk of a dozen pages with axe on each, on two cores shared by several builds
+test.describe.configure({ timeout: 240_000 });
 
 /** Opens the page and (softly, so every page of a walk reports) fails with a readable list of every serious or critical violation. */
 async function audit(page: Page, screen: Screen) {

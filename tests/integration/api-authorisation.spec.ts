@@ -40,6 +40,10 @@ const expectations: Record<string, Record<string, Expectation>> = {
 	'/api/v1/attempts/[id]': {
 		GET: { path: '/api/v1/attempts/00000000-0000-4000-8000-000000000000', params: { id: '00000000-0000-4000-8000-000000000000' }, status: { anonymous: 401, learner: 404, mentor: 404, author: 404, admin: 404 } }
 	},
+	// someone else's certificate and a missing one answer alike: 404
+	'/api/v1/credentials/[id]': {
+		GET: { path: '/api/v1/credentials/00000000-0000-4000-8000-000000000000?format=pdf', params: { id: '00000000-0000-4000-8000-000000000000' }, status: { anonymous: 401, learner: 404, mentor: 404, author: 404, admin: 404 } }
+	},
 	'/api/v1/review-queue': { GET: { status: { anonymous: 401, learner: 403, mentor: 200, author: 403, admin: 200 } } },
 	'/api/v1/author/preview': { POST: { status: authorsNoBody } },
 	'/api/v1/author/spec-check': { POST: { status: authorsNoBody } },

@@ -49,7 +49,11 @@ const audiences: Record<string, Record<string, Audience>> = {
 	'/(public)/courses/[course]': { enrol: 'signed-in' },
 	'/(public)/signup': { default: 'anyone' },
 	'/(public)/verify': { default: 'anyone' },
-	'/(public)/reset': { request: 'anyone', confirm: 'anyone' }
+	'/(public)/reset': { request: 'anyone', confirm: 'anyone' },
+	'/(learn)/progress': { claim: 'signed-in' },
+	'/(public)/verify/credential': { default: 'anyone' },
+	'/(admin)/admin/credentials': { revoke: 'admin' },
+	'/(author)/author/certificates': { default: 'author' }
 };
 
 /** Parameters that name nothing: allowed roles then reach "not found", and no demo data is touched. */

@@ -54,4 +54,13 @@ describe('demo seed', () => {
 			await seedDemo(db);
 		}
 	});
+
+	test('the school’s signing key for certificates is made once: later runs keep the same one', async () => {
+		await seedDemo(db);
+		const first = await db.execute<{ kid: string }>(sql`select kid from issuer_keys where active`);
+		await seedDemo(db);
+		const second = await db.execute<{ kid: string }>(sql`select kid from issuer_keys where active`);
+		expect(first).toHaveLength(1);
+		expect(second.map((r) => r.kid)).toEqual(first.map((r) => r.kid));
+	});
 });

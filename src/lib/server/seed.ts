@@ -7,6 +7,7 @@ import type { Db } from './db';
 import { assignments, coupons, courses, lessons, modules, users, type Role } from './db/schema';
 import { readCatalogue } from './lessons/catalogue';
 import { hashPassword } from './password';
+import { ensureIssuerKey } from './credentials/keys';
 
 type DemoAccount = { role: Role; name: string; email: string; password: string; roles: Role[] };
 
@@ -99,5 +100,8 @@ export async function seedDemo(db: Db, root = process.cwd()): Promise<void> {
 
 		// one invented demo coupon to try at checkout; a second seed leaves the existing row as it is
 		await tx.insert(coupons).values({ code: 'HARBOR20', percentOff: 20 }).onConflictDoNothing();
+
+		// the school's signing key for certificates, made on the first start and kept from then on
+		await ensureIssuerKey(tx);
 	});
 }

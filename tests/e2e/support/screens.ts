@@ -33,7 +33,8 @@ export const visitorScreens: Screen[] = [
 	{ name: 'reset', path: '/reset' },
 	{ name: 'sign-up-sent', path: '/signup/sent' },
 	{ name: 'verify-without-link', path: '/verify' },
-	{ name: 'instructor', path: '/instructors/jun-halvorsen' }
+	{ name: 'instructor', path: '/instructors/jun-halvorsen' },
+	{ name: 'verify-credential', path: '/verify/credential', heading: /^Check a certificate$/ }
 ];
 
 /** The learner's pages; `attemptHref` adds the verdict page of one of their Attempts. */
@@ -70,7 +71,8 @@ export async function authorScreens(sql: Sql): Promise<Screen[]> {
 		{ name: 'author-history', path: `/author/lessons/${lesson.id}/history`, heading: new RegExp(`^History of “${escaped}”$`) },
 		{ name: 'author-assignment', path: `/author/assignments/${assignment.id}`, heading: /^Assignment$/ },
 		{ name: 'author-new-lesson', path: '/author/lessons/new' },
-		{ name: 'author-new-assignment', path: `/author/lessons/${lesson.id}/assignments/new` }
+		{ name: 'author-new-assignment', path: `/author/lessons/${lesson.id}/assignments/new` },
+		{ name: 'author-certificates', path: '/author/certificates', heading: /^Certificate rules$/ }
 	];
 }
 
@@ -82,5 +84,6 @@ export const adminScreens: Screen[] = [
 	{ name: 'admin-audit', path: '/admin/audit', heading: /^Audit log$/ },
 	{ name: 'admin-mailbox', path: '/admin/mailbox', heading: /^Mailbox$/ },
 	{ name: 'admin-learning-records', path: '/admin/learning-records', heading: /^Learning records$/ },
+	{ name: 'admin-credentials', path: '/admin/credentials', heading: /^Certificates$/ },
 	{ name: 'admin-coupon', path: '/admin/coupons/HARBOR20' }
 ];

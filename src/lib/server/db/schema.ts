@@ -107,7 +107,9 @@ export const assignments = pgTable(
 		title: text('title').notNull(),
 		brief: text('brief').notNull(),
 		spec: jsonb('spec').$type<AssignmentSpecInput>().notNull(),
-		position: integer('position').notNull().default(0)
+		position: integer('position').notNull().default(0),
+		/** whether passing it is needed for the course's certificate (issue 16); the author decides, all count by default */
+		countsForCredential: boolean('counts_for_credential').notNull().default(true)
 	},
 	(t) => [index('assignments_lesson_idx').on(t.lessonId)]
 );
@@ -483,7 +485,9 @@ export const auditActions = [
 	'coupon.create',
 	'coupon.change',
 	'plan.approve',
-	'plan.return'
+	'plan.return',
+	'credential.revoke',
+	'credential.rules'
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 
@@ -610,3 +614,55 @@ export const lessonClips = pgTable(
 );
 export type LessonClip = typeof lessonClips.$inferSelect;
 // ---- end lesson clips ----
+
+// ---- credentials (issue 16): the school's signing key, certificate rules, issued certificates ----
+
+/** The school's Ed25519 signing keys as JWKs (RFC 7517); one is active. Made by the seed on first start. */
+export const issuerKeys = pgTable(
+	'issuer_keys',
+	{
+		/** the JWK thumbprint (RFC 7638), also the JWS header's `kid` */
+		kid: text('kid').primaryKey(),
+		publicJwk: jsonb('public_jwk').$type<Record<string, string>>().notNull(),
+		privateJwk: jsonb('private_jwk').$type<Record<string, string>>().notNull(),
+		active: boolean('active').notNull().default(true),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	// at most one active key: two first starts at once keep one of them
+	(t) => [uniqueIndex('issuer_keys_one_active_idx').on(t.active).where(sql`${t.active}`)]
+);
+export type IssuerKey = typeof issuerKeys.$inferSelect;
+
+/** What a course's certificate asks beyond every lesson: how many of its counted Assignments must be passed. */
+export const credentialRules = pgTable('credential_rules', {
+	courseId: integer('course_id')
+		.primaryKey()
+		.references(() => courses.id, { onDelete: 'cascade' }),
+	/** null: every counted Assignment */
+	minimumPassed: integer('minimum_passed'),
+	updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+});
+export type CredentialRule = typeof credentialRules.$inferSelect;
+
+/** One certificate per learner and course: the signed credential (compact JWS) and its revocation, if any. */
+export const issuedCredentials = pgTable(
+	'issued_credentials',
+	{
+		/** a UUID; the credential's id is `urn:uuid:<id>` */
+		id: text('id').primaryKey(),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		courseId: integer('course_id')
+			.notNull()
+			.references(() => courses.id, { onDelete: 'cascade' }),
+		kid: text('kid').notNull(),
+		jwt: text('jwt').notNull(),
+		issuedAt: timestamp('issued_at', { withTimezone: true }).notNull(),
+		revokedAt: timestamp('revoked_at', { withTimezone: true }),
+		revokedReason: text('revoked_reason').notNull().default('')
+	},
+	(t) => [uniqueIndex('issued_credentials_user_course_idx').on(t.userId, t.courseId), index('issued_credentials_issued_idx').on(t.issuedAt)]
+);
+export type IssuedCredential = typeof issuedCredentials.$inferSelect;
+// ---- end credentials ----
