@@ -47,6 +47,10 @@ const audiences: Record<string, Record<string, Audience>> = {
 	'/(public)/signout': { default: 'anyone' },
 	'/(public)/signin': { default: 'anyone' },
 	'/(public)/courses/[course]': { enrol: 'signed-in' },
+	'/(learn)/field-days': { resetFeed: 'signed-in' },
+	'/(learn)/field-days/[slug]': { book: 'signed-in', cancel: 'signed-in' },
+	'/(author)/author/field-days/new': { default: 'author' },
+	'/(author)/author/field-days/[id=integer]': { default: 'author' },
 	'/(public)/signup': { default: 'anyone' },
 	'/(public)/verify': { default: 'anyone' },
 	'/(public)/reset': { request: 'anyone', confirm: 'anyone' }

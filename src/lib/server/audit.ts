@@ -33,7 +33,9 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
 	'coupon.create': 'Coupon created',
 	'coupon.change': 'Coupon changed',
 	'plan.approve': 'Shoot Plan approved',
-	'plan.return': 'Shoot Plan sent back'
+	'plan.return': 'Shoot Plan sent back',
+	'field-day.schedule': 'Field day scheduled',
+	'field-day.change': 'Field day changed'
 };
 
 /**

@@ -7,6 +7,7 @@ import type { Db } from './db';
 import { assignments, coupons, courses, lessons, modules, users, type Role } from './db/schema';
 import { readCatalogue } from './lessons/catalogue';
 import { hashPassword } from './password';
+import { seedDemoFieldDays } from './field-days/demo';
 
 type DemoAccount = { role: Role; name: string; email: string; password: string; roles: Role[] };
 
@@ -100,4 +101,6 @@ export async function seedDemo(db: Db, root = process.cwd()): Promise<void> {
 		// one invented demo coupon to try at checkout; a second seed leaves the existing row as it is
 		await tx.insert(coupons).values({ code: 'HARBOR20', percentOff: 20 }).onConflictDoNothing();
 	});
+	// the demo's field days name its course, Assignments and mentor, so they come after them
+	await seedDemoFieldDays(db);
 }

@@ -47,7 +47,9 @@ export function learnerScreens(attemptHref?: string): Screen[] {
 		...(attemptHref ? [{ name: 'verdict', path: attemptHref, heading: /^Off the axis$/ }] : []),
 		{ name: 'progress', path: '/progress', heading: /^Your progress$/ },
 		{ name: 'account', path: '/account' },
-		{ name: 'billing', path: '/account/billing' }
+		{ name: 'billing', path: '/account/billing' },
+		{ name: 'field-days', path: '/field-days', heading: /^Field days$/ },
+		{ name: 'field-day', path: '/field-days/trail-running-first-light', heading: /^Trail running at first light \(demo\)$/ }
 	];
 }
 
@@ -60,6 +62,7 @@ export const mentorScreens: Screen[] = [
 export async function authorScreens(sql: Sql): Promise<Screen[]> {
 	const [lesson] = await sql<{ id: number; title: string }[]>`select id, title from lessons where slug = ${LESSON}`;
 	const [assignment] = await sql<{ id: number }[]>`select id from assignments where slug = ${LESSON}`;
+	const [fieldDay] = await sql<{ id: number }[]>`select id from field_days where slug = 'bmx-flatland-afternoon'`;
 	const escaped = lesson.title.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 	return [
 		{ name: 'author-tree', path: '/author', heading: /^Lessons$/ },
@@ -67,7 +70,10 @@ export async function authorScreens(sql: Sql): Promise<Screen[]> {
 		{ name: 'author-history', path: `/author/lessons/${lesson.id}/history`, heading: new RegExp(`^History of “${escaped}”$`) },
 		{ name: 'author-assignment', path: `/author/assignments/${assignment.id}`, heading: /^Assignment$/ },
 		{ name: 'author-new-lesson', path: '/author/lessons/new' },
-		{ name: 'author-new-assignment', path: `/author/lessons/${lesson.id}/assignments/new` }
+		{ name: 'author-new-assignment', path: `/author/lessons/${lesson.id}/assignments/new` },
+		{ name: 'author-field-days', path: '/author/field-days', heading: /^Field days$/ },
+		{ name: 'author-new-field-day', path: '/author/field-days/new', heading: /^Schedule a field day$/ },
+		{ name: 'author-field-day', path: `/author/field-days/${fieldDay.id}`, heading: /^BMX flatland afternoon \(demo\)$/ }
 	];
 }
 

@@ -6,6 +6,9 @@ import { attempts } from '../db/schema';
 import { gradeAttempt, markGradingFailed, type GradeOptions } from './grade-job';
 import { sweepUploads } from './uploads/sweep';
 import { startDeliveryWorker } from '../learning-records/worker';
+import { expireSeatHold } from '../field-days/booking';
+import { publicOrigin } from '../field-days/follow-ups';
+import { ensureFieldDayQueues, SEAT_EXPIRY_QUEUE, type SeatExpiryJob } from '../field-days/jobs';
 import { GRADE_FAILED_QUEUE, GRADE_QUEUE, SWEEP_CRON, SWEEP_QUEUE, openQueue, queueGrading, registerLocalWorker, WAKE_CHANNEL, type GradeJobData, type QueueOptions } from './queue';
 
 // a fallback only: a sent job wakes the worker at once
@@ -66,6 +69,12 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 
 	// learning records (xAPI statements) are sent by the same processes that grade
 	const delivery = await startDeliveryWorker(boss);
+	// a field-day seat held for a checkout or offered from the waiting list runs out at its time limit
+	await ensureFieldDayQueues(boss);
+	const seatId = await boss.work<SeatExpiryJob>(SEAT_EXPIRY_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async ([job]) => {
+		const bookingId = Number(job.data?.bookingId);
+		return { outcome: Number.isInteger(bookingId) ? await expireSeatHold(bookingId, publicOrigin()) : 'nothing' };
+	});
 
 	const listener = await client.listen(WAKE_CHANNEL, () => boss.notifyWorker(id)).catch((error: unknown) => {
 		console.error('[worker] cannot LISTEN for new jobs; polling only', error instanceof Error ? error.message : error);
@@ -85,6 +94,7 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 			await boss.offWork({ id: deadId });
 			await boss.offWork({ id: sweepId });
 			await delivery.stop();
+			await boss.offWork({ id: seatId });
 		}
 	};
 }

@@ -483,7 +483,9 @@ export const auditActions = [
 	'coupon.create',
 	'coupon.change',
 	'plan.approve',
-	'plan.return'
+	'plan.return',
+	'field-day.schedule',
+	'field-day.change'
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 
@@ -571,3 +573,91 @@ export const learningRecords = pgTable(
 	(t) => [index('learning_records_waiting_idx').on(t.createdAt).where(sql`${t.sentAt} is null`), index('learning_records_sent_idx').on(t.sentAt)]
 );
 export type LearningRecord = typeof learningRecords.$inferSelect;
+// ---- field days ----
+
+/** An in-person day at a venue: seats, a price or inclusion with enrolment, the kit list and the safety briefing. */
+export const fieldDays = pgTable(
+	'field_days',
+	{
+		id: serial('id').primaryKey(),
+		slug: text('slug').notNull().unique(),
+		courseId: integer('course_id')
+			.notNull()
+			.references(() => courses.id, { onDelete: 'cascade' }),
+		/** the Assignment the day's frames are uploaded to (optional) */
+		assignmentId: integer('assignment_id').references(() => assignments.id, { onDelete: 'set null' }),
+		title: text('title').notNull(),
+		summary: text('summary').notNull().default(''),
+		startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
+		endsAt: timestamp('ends_at', { withTimezone: true }).notNull(),
+		/** IANA zone the times are shown in (the venue's) */
+		timeZone: text('time_zone').notNull(),
+		meetingPoint: text('meeting_point').notNull(),
+		latitude: real('latitude'),
+		longitude: real('longitude'),
+		seats: integer('seats').notNull(),
+		/** 0 with `includedWithEnrolment`: enrolled learners book without paying */
+		priceCents: integer('price_cents').notNull().default(0),
+		currency: text('currency').notNull().default('usd'),
+		includedWithEnrolment: boolean('included_with_enrolment').notNull().default(false),
+		/** a cancellation at least this many hours before the start is refunded in full; later, not at all */
+		refundHours: integer('refund_hours').notNull().default(48),
+		kitList: text('kit_list').notNull().default(''),
+		safetyBriefing: text('safety_briefing').notNull(),
+		mentorIds: text('mentor_ids').array().notNull().default(sql`'{}'::text[]`),
+		status: text('status', { enum: ['scheduled', 'cancelled'] }).notNull().default('scheduled'),
+		createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('field_days_starts_idx').on(t.startsAt)]
+);
+export type FieldDay = typeof fieldDays.$inferSelect;
+
+export const bookingStatuses = ['held', 'booked', 'waiting', 'offered', 'cancelled'] as const;
+export type BookingStatus = (typeof bookingStatuses)[number];
+
+/**
+ * One row per learner and field day, changed in place: its id makes the calendar event's UID and `sequence` rises with
+ * every change the learner is told of. `held` and `offered` keep a seat until `holdUntil`.
+ */
+export const fieldDayBookings = pgTable(
+	'field_day_bookings',
+	{
+		id: serial('id').primaryKey(),
+		fieldDayId: integer('field_day_id')
+			.notNull()
+			.references(() => fieldDays.id, { onDelete: 'cascade' }),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		status: text('status', { enum: bookingStatuses }).notNull(),
+		/** checkout in progress (held) or a freed seat offered: the seat is kept until then */
+		holdUntil: timestamp('hold_until', { withTimezone: true }),
+		waitingSince: timestamp('waiting_since', { withTimezone: true }),
+		checkoutSessionId: text('checkout_session_id').unique(),
+		paymentIntentId: text('payment_intent_id'),
+		amountCents: integer('amount_cents').notNull().default(0),
+		refundedCents: integer('refunded_cents').notNull().default(0),
+		briefingAcknowledgedAt: timestamp('briefing_acknowledged_at', { withTimezone: true }),
+		attendedAt: timestamp('attended_at', { withTimezone: true }),
+		/** RFC 5545 SEQUENCE of this learner's event */
+		sequence: integer('sequence').notNull().default(0),
+		bookedAt: timestamp('booked_at', { withTimezone: true }),
+		cancelledAt: timestamp('cancelled_at', { withTimezone: true }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [uniqueIndex('field_day_bookings_person_idx').on(t.fieldDayId, t.userId), index('field_day_bookings_status_idx').on(t.fieldDayId, t.status)]
+);
+export type FieldDayBooking = typeof fieldDayBookings.$inferSelect;
+
+/** A learner's private calendar feed: the secret in its URL, kept so the page can show the address again; a reset replaces it. */
+export const calendarFeeds = pgTable('calendar_feeds', {
+	userId: text('user_id')
+		.primaryKey()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	token: text('token').notNull().unique(),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+// ---- end field days ----
