@@ -15,6 +15,7 @@ import { changeFieldDay } from '$lib/server/field-days/schedule';
 import { fieldDayFormValues } from '$lib/server/field-days/read';
 import { bookingUid, feedOwner, feedToken, learnerFeed } from '$lib/server/field-days/calendar';
 import { SEAT_EXPIRY_QUEUE } from '$lib/server/field-days/jobs';
+import { acknowledgeOnDay, markAttendance, readRollCall } from '$lib/server/field-days/roll-call';
 import { closeQueue } from '$lib/server/attempts/queue';
 import { backgroundMailDrained } from '$lib/server/mail';
 import { mailboxDir } from '$lib/server/mailbox';
@@ -290,3 +291,34 @@ describe('the calendar', () => {
 	});
 });
 
+
+describe('on the day', () => {
+	test('only the mentors on duty (and admins) keep the roll call; marking who came; the briefing heard on the day', async () => {
+		const mentorId = await userIdOf(demoAccount('mentor').email);
+		const day = await makeDay({ seats: 3, mentorIds: [mentorId], startsAt: new Date(Date.now() + 2 * 3_600_000), endsAt: new Date(Date.now() + 5 * 3_600_000) });
+		const [p] = await people(1);
+		await bookSeat(p, day.id, true, origin);
+		const mentor = { id: mentorId, roles: ['learner', 'mentor'] } as unknown as AuthUser;
+		const otherMentor = { id: 'someone-else', roles: ['learner', 'mentor'] } as unknown as AuthUser;
+		expect(await readRollCall(otherMentor, day.slug)).toMatchObject({ ok: false, status: 403 });
+
+		const before = await readRollCall(mentor, day.slug);
+		expect(before).toMatchObject({ ok: true, participants: [{ name: 'Field Day Tester (test)', came: false, onDayAt: null }] });
+		const [row] = await bookingsOf(day.id);
+		expect((before as { participants: { acknowledgedAt: string | null }[] }).participants[0].acknowledgedAt).not.toBeNull();
+
+		expect(await acknowledgeOnDay(p, day.id)).toEqual({ ok: true });
+		expect(await markAttendance(mentor, day.slug, row.id, true)).toEqual({ ok: true });
+		expect(await markAttendance(otherMentor, day.slug, row.id, true)).toMatchObject({ ok: false, status: 403 });
+		const after = await readRollCall(mentor, day.slug);
+		expect(after).toMatchObject({ ok: true, participants: [{ came: true, onDayAt: expect.any(String) }] });
+	});
+
+	test('the briefing cannot be "heard on the day" days ahead, nor without a seat', async () => {
+		const day = await makeDay({ seats: 3 });
+		const [p, q] = await people(2);
+		await bookSeat(p, day.id, true, origin);
+		expect(await acknowledgeOnDay(p, day.id)).toMatchObject({ ok: false, status: 409 });
+		expect(await acknowledgeOnDay(q, day.id, new Date(day.startsAt.getTime() - 3_600_000))).toMatchObject({ ok: false, status: 404 });
+	});
+});

@@ -55,7 +55,9 @@ export function learnerScreens(attemptHref?: string): Screen[] {
 
 export const mentorScreens: Screen[] = [
 	{ name: 'mentor-queue', path: '/mentor', heading: /^Review queue$/ },
-	{ name: 'mentor-plans', path: '/mentor/plans', heading: /^Shoot Plans waiting$/ }
+	{ name: 'mentor-plans', path: '/mentor/plans', heading: /^Shoot Plans waiting$/ },
+	{ name: 'mentor-field-days', path: '/mentor/field-days', heading: /^Field days on duty$/ },
+	{ name: 'mentor-roll-call', path: '/mentor/field-days/trail-running-first-light', heading: /^Roll call$/ }
 ];
 
 /** The author's pages for the demo lesson "Off the axis" (ids looked up in the database). */

@@ -640,6 +640,9 @@ export const fieldDayBookings = pgTable(
 		amountCents: integer('amount_cents').notNull().default(0),
 		refundedCents: integer('refunded_cents').notNull().default(0),
 		briefingAcknowledgedAt: timestamp('briefing_acknowledged_at', { withTimezone: true }),
+		/** the participant heard the briefing again at the venue and said so from their phone */
+		briefingOnDayAt: timestamp('briefing_on_day_at', { withTimezone: true }),
+		/** set by the mentor on duty at roll call */
 		attendedAt: timestamp('attended_at', { withTimezone: true }),
 		/** RFC 5545 SEQUENCE of this learner's event */
 		sequence: integer('sequence').notNull().default(0),

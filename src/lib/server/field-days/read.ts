@@ -2,7 +2,8 @@
 import { and, asc, eq, gt, inArray, or, sql } from 'drizzle-orm';
 import { formatPrice } from '../../format';
 import { db } from '../db';
-import { courses, fieldDayBookings, fieldDays, type FieldDay } from '../db/schema';
+import { assignments, courses, fieldDayBookings, fieldDays, lessons, type FieldDay } from '../db/schema';
+import { isOnTheDay } from './roll-call';
 import { refundDeadline, refundRuleText } from './refund-rule';
 import { mustPay, waitingPosition } from './seats';
 import { whenText } from './follow-ups';
@@ -50,6 +51,14 @@ export async function fieldDayPage(slug: string, userId: string) {
 		.from(fieldDayBookings)
 		.where(and(eq(fieldDayBookings.fieldDayId, day.id), eq(fieldDayBookings.status, 'waiting')));
 	const paid = mustPay(day);
+	// the day's Assignment through the normal attempt path: its upload page under the lesson
+	const [upload] = day.assignmentId
+		? await db
+				.select({ lesson: lessons.slug, slug: assignments.slug, title: assignments.title })
+				.from(assignments)
+				.innerJoin(lessons, eq(lessons.id, assignments.lessonId))
+				.where(eq(assignments.id, day.assignmentId))
+		: [];
 	const holdLive = own?.holdUntil ? own.holdUntil.getTime() > Date.now() : false;
 	const status = !own ? 'none' : (own.status === 'held' || own.status === 'offered') && !holdLive ? 'cancelled' : own.status;
 	return {
@@ -74,12 +83,15 @@ export async function fieldDayPage(slug: string, userId: string) {
 		safetyBriefing: day.safetyBriefing,
 		dayStatus: day.status,
 		started: day.startsAt.getTime() <= Date.now(),
+		onTheDay: isOnTheDay(day),
+		upload: upload ? { title: upload.title, href: `/courses/${course.slug}/${upload.lesson}/assignments/${upload.slug}` } : null,
 		booking: own
 			? {
 					status,
 					holdUntil: holdLive && own.holdUntil ? whenText({ startsAt: own.holdUntil, endsAt: own.holdUntil, timeZone: day.timeZone }).replace(/–.*? \(/, ' (') : null,
 					position: own.status === 'waiting' ? await db.transaction((tx) => waitingPosition(tx, day.id, own.id)) : null,
 					acknowledged: own.briefingAcknowledgedAt !== null,
+					acknowledgedOnDay: own.briefingOnDayAt !== null,
 					refunded: own.refundedCents > 0 ? formatPrice(own.refundedCents, day.currency) : null
 				}
 			: null

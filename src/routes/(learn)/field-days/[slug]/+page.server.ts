@@ -4,6 +4,7 @@ import { requireUser } from '$lib/server/guards';
 import { fieldDayPage } from '$lib/server/field-days/read';
 import { bookSeat, cancelBooking } from '$lib/server/field-days/booking';
 import { confirmFieldDayPayment } from '$lib/server/field-days/payment';
+import { acknowledgeOnDay } from '$lib/server/field-days/roll-call';
 import { bookSchema } from '$lib/forms/field-days';
 import { formatPrice } from '$lib/format';
 import type { Actions, PageServerLoad } from './$types';
@@ -55,5 +56,13 @@ export const actions = {
 		if (!outcome.ok) return fail(outcome.status, { cancel: note(outcome.message) });
 		const refunded = outcome.refundedCents > 0 ? ` ${formatPrice(outcome.refundedCents, outcome.currency)} is refunded.` : '';
 		return { cancel: note(null, `Cancelled.${refunded}`) };
+	},
+	acknowledge: async (event) => {
+		const user = requireUser(event);
+		const id = await fieldDayId(event.params.slug, user.id);
+		if (id === null) return fail(404, { acknowledge: note('There is no such field day.') });
+		const done = await acknowledgeOnDay(user, id);
+		if (!done.ok) return fail(done.status, { acknowledge: note(done.message) });
+		return { acknowledge: note(null, 'Thank you: the mentor on duty sees that you heard the briefing.') };
 	}
 } satisfies Actions;
