@@ -8,6 +8,7 @@ import { assignments, coupons, courses, lessons, modules, users, type Role } fro
 import { readCatalogue } from './lessons/catalogue';
 import { hashPassword } from './password';
 import { seedDemoFieldDays } from './field-days/demo';
+import { seedDemoCohort } from './cohorts/demo';
 
 type DemoAccount = { role: Role; name: string; email: string; password: string; roles: Role[] };
 
@@ -103,4 +104,5 @@ export async function seedDemo(db: Db, root = process.cwd()): Promise<void> {
 	});
 	// the demo's field days name its course, Assignments and mentor, so they come after them
 	await seedDemoFieldDays(db);
+	await seedDemoCohort(db);
 }

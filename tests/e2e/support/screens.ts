@@ -49,6 +49,7 @@ export function learnerScreens(attemptHref?: string): Screen[] {
 		{ name: 'account', path: '/account' },
 		{ name: 'billing', path: '/account/billing' },
 		{ name: 'field-days', path: '/field-days', heading: /^Field days$/ },
+		{ name: 'cohort', path: '/cohort', heading: /^Your cohort$/ },
 		{ name: 'field-day', path: '/field-days/trail-running-first-light', heading: /^Trail running at first light \(demo\)$/ }
 	];
 }

@@ -9,6 +9,7 @@ import { startDeliveryWorker } from '../learning-records/worker';
 import { expireSeatHold } from '../field-days/booking';
 import { publicOrigin } from '../field-days/follow-ups';
 import { ensureFieldDayQueues, SEAT_EXPIRY_QUEUE, type SeatExpiryJob } from '../field-days/jobs';
+import { ensureReminderQueue, REMINDER_CRON, REMINDER_QUEUE, sendDueReminders } from '../cohorts/reminders';
 import { GRADE_FAILED_QUEUE, GRADE_QUEUE, SWEEP_CRON, SWEEP_QUEUE, openQueue, queueGrading, registerLocalWorker, WAKE_CHANNEL, type GradeJobData, type QueueOptions } from './queue';
 
 // a fallback only: a sent job wakes the worker at once
@@ -76,6 +77,11 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 		return { outcome: Number.isInteger(bookingId) ? await expireSeatHold(bookingId, publicOrigin()) : 'nothing' };
 	});
 
+	// reminders before cohort due dates, hourly
+	await ensureReminderQueue(boss);
+	await boss.schedule(REMINDER_QUEUE, REMINDER_CRON);
+	const reminderId = await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async () => ({ sent: await sendDueReminders(publicOrigin()) }));
+
 	const listener = await client.listen(WAKE_CHANNEL, () => boss.notifyWorker(id)).catch((error: unknown) => {
 		console.error('[worker] cannot LISTEN for new jobs; polling only', error instanceof Error ? error.message : error);
 		return null;
@@ -95,6 +101,7 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 			await boss.offWork({ id: sweepId });
 			await delivery.stop();
 			await boss.offWork({ id: seatId });
+			await boss.offWork({ id: reminderId });
 		}
 	};
 }

@@ -664,3 +664,50 @@ export const calendarFeeds = pgTable('calendar_feeds', {
 	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 });
 // ---- end field days ----
+
+// ---- cohorts ----
+
+/** Learners who start a course together, with a mentor and a due date per Assignment. */
+export const cohorts = pgTable('cohorts', {
+	id: serial('id').primaryKey(),
+	slug: text('slug').notNull().unique(),
+	title: text('title').notNull(),
+	courseId: integer('course_id')
+		.notNull()
+		.references(() => courses.id, { onDelete: 'cascade' }),
+	mentorId: text('mentor_id').references(() => users.id, { onDelete: 'set null' }),
+	startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+export type Cohort = typeof cohorts.$inferSelect;
+
+export const cohortMembers = pgTable(
+	'cohort_members',
+	{
+		cohortId: integer('cohort_id')
+			.notNull()
+			.references(() => cohorts.id, { onDelete: 'cascade' }),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		joinedAt: timestamp('joined_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [primaryKey({ columns: [t.cohortId, t.userId] }), index('cohort_members_user_idx').on(t.userId)]
+);
+
+export const cohortDueDates = pgTable(
+	'cohort_due_dates',
+	{
+		cohortId: integer('cohort_id')
+			.notNull()
+			.references(() => cohorts.id, { onDelete: 'cascade' }),
+		assignmentId: integer('assignment_id')
+			.notNull()
+			.references(() => assignments.id, { onDelete: 'cascade' }),
+		dueAt: timestamp('due_at', { withTimezone: true }).notNull(),
+		/** when the reminder before this due date went out (once per cohort and Assignment) */
+		remindedAt: timestamp('reminded_at', { withTimezone: true })
+	},
+	(t) => [primaryKey({ columns: [t.cohortId, t.assignmentId] }), index('cohort_due_dates_due_idx').on(t.dueAt)]
+);
+// ---- end cohorts ----

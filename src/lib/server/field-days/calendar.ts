@@ -5,6 +5,7 @@ import { randomBytes } from 'node:crypto';
 import { db } from '../db';
 import { calendarFeeds, fieldDayBookings, fieldDays, users, type FieldDay, type FieldDayBooking } from '../db/schema';
 import { mailFrom } from '../mail';
+import { dueDatesFor } from '../cohorts/schedule';
 
 const prodId = { company: 'Stopwise', product: 'Field days', language: 'EN' };
 
@@ -61,7 +62,7 @@ export function bookingInvitation(input: EventInput): { method: 'REQUEST' | 'CAN
 	return { method: cancelled ? 'CANCEL' : 'REQUEST', content: cal.toString() };
 }
 
-/** The learner's private feed: every field day they booked, and those they gave up as cancelled (so calendars drop them). */
+/** The learner's private feed: every field day they booked, those they gave up as cancelled (so calendars drop them), and their cohorts' due dates. */
 export async function learnerFeed(userId: string, origin: string): Promise<string> {
 	const rows = await db
 		.select({ booking: fieldDayBookings, day: fieldDays })
@@ -71,6 +72,17 @@ export async function learnerFeed(userId: string, origin: string): Promise<strin
 	const cal = ical({ prodId, method: ICalCalendarMethod.PUBLISH, name: 'Stopwise: my field days' });
 	// a booking cancelled before it was ever booked was never in the calendar
 	for (const { booking, day } of rows) if (booking.status === 'booked' || booking.bookedAt) addEvent(cal, { day, booking, origin });
+	// the due dates of the learner's cohorts, as a short event at the deadline
+	for (const due of await dueDatesFor(userId)) {
+		cal.createEvent({
+			id: `cohort-${due.cohortId}-due-${due.assignmentId}@stopwise`,
+			start: due.dueAt,
+			end: due.dueAt,
+			summary: `Due: ${due.assignment}`,
+			description: `Your cohort “${due.cohort}” sends “${due.assignment}” by now.`,
+			url: `${origin}/cohort`
+		});
+	}
 	return cal.toString();
 }
 
