@@ -8,6 +8,8 @@ import { assignments, attempts, cohortDueDates, cohortMembers, cohorts, courses,
 import { learnerCohorts } from '$lib/server/cohorts/schedule';
 import { sendDueReminders } from '$lib/server/cohorts/reminders';
 import { learnerFeed } from '$lib/server/field-days/calendar';
+import { cohortReportCsv } from '$lib/server/field-days/report';
+import { parse } from 'csv-parse/sync';
 import { GET } from '../../src/routes/api/v1/review-queue/+server';
 import * as schedulePage from '../../src/routes/(learn)/cohort/+page.server';
 import { makeEvent, origin, throughHooks } from './support/request-event';
@@ -77,6 +79,20 @@ describe('the review queue by cohort', () => {
 		const everyone = await queue('?status=all&limit=100');
 		expect(everyone.body.attempts.some((a: { learner: string }) => a.learner === 'Cy Outsider (test)')).toBe(true);
 		expect(everyone.body.overdue).toEqual([]);
+	});
+});
+
+describe('the cohort report', () => {
+	test('one row per member and due date: on time, late, missing or not yet due, as CSV', async () => {
+		const rows = parse((await cohortReportCsv(slug))!, { columns: true }) as Record<string, string>[];
+		const states = rows.map((r) => `${r.learner} · ${r.assignment} · ${r.state} · ${r.attempts}`);
+		expect(states).toEqual([
+			'Ada Cohortson (test) · Off the axis · on time · 2',
+			'Ada Cohortson (test) · Dim the sky · not yet due · 0',
+			'Bo Latecomer (test) · Off the axis · missing · 0',
+			'Bo Latecomer (test) · Dim the sky · on time · 1'
+		]);
+		expect(rows[0]).toMatchObject({ verdict: 'pass', hours_to_critique: '' });
 	});
 });
 

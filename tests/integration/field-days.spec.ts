@@ -16,6 +16,8 @@ import { fieldDayFormValues } from '$lib/server/field-days/read';
 import { bookingUid, feedOwner, feedToken, learnerFeed } from '$lib/server/field-days/calendar';
 import { SEAT_EXPIRY_QUEUE } from '$lib/server/field-days/jobs';
 import { acknowledgeOnDay, markAttendance, readRollCall } from '$lib/server/field-days/roll-call';
+import { fieldDayReportCsv } from '$lib/server/field-days/report';
+import { parse } from 'csv-parse/sync';
 import { closeQueue } from '$lib/server/attempts/queue';
 import { backgroundMailDrained } from '$lib/server/mail';
 import { mailboxDir } from '$lib/server/mailbox';
@@ -312,6 +314,12 @@ describe('on the day', () => {
 		expect(await markAttendance(otherMentor, day.slug, row.id, true)).toMatchObject({ ok: false, status: 403 });
 		const after = await readRollCall(mentor, day.slug);
 		expect(after).toMatchObject({ ok: true, participants: [{ came: true, onDayAt: expect.any(String) }] });
+
+		// the day's report, read back with a CSV parser
+		const report = parse((await fieldDayReportCsv(day.slug))!, { columns: true }) as Record<string, string>[];
+		expect(report).toEqual([expect.objectContaining({ learner: 'Field Day Tester (test)', booking: 'booked', came: 'yes', attempts: '0', verdict: '', hours_to_critique: '' })]);
+		expect(report[0].briefing_on_the_day).not.toBe('');
+		expect(await fieldDayReportCsv('no-such-day')).toBeNull();
 	});
 
 	test('the briefing cannot be "heard on the day" days ahead, nor without a seat', async () => {
