@@ -58,6 +58,11 @@ const expectations: Record<string, Record<string, Expectation>> = {
 	'/api/v1/clips/[id]/[file]': {
 		GET: { path: `/api/v1/clips/${'0'.repeat(8)}-0000-4000-8000-${'0'.repeat(12)}/720.mp4`, params: { id: `${'0'.repeat(8)}-0000-4000-8000-${'0'.repeat(12)}`, file: '720.mp4' }, status: { anonymous: 404, learner: 404, mentor: 404, author: 404, admin: 404 } }
 	},
+	// a private calendar feed opens by the secret in its address alone (calendar apps send no session): an unknown one is 404
+	'/api/v1/calendar/[token]': { GET: { path: `/api/v1/calendar/${'x'.repeat(32)}`, params: { token: 'x'.repeat(32) }, status: { anonymous: 404, learner: 404, mentor: 404, author: 404, admin: 404 } } },
+	// reports for mentors and admins; a missing field day or cohort answers 404 to them
+	'/api/v1/reports/field-days/[slug]': { GET: { path: '/api/v1/reports/field-days/no-such-day', params: { slug: 'no-such-day' }, status: { anonymous: 401, learner: 403, mentor: 404, author: 403, admin: 404 } } },
+	'/api/v1/reports/cohorts/[slug]': { GET: { path: '/api/v1/reports/cohorts/no-such-cohort', params: { slug: 'no-such-cohort' }, status: { anonymous: 401, learner: 403, mentor: 404, author: 403, admin: 404 } } },
 	// public (the provider calls it with no session), but an unsigned request is refused whoever sends it
 	'/api/v1/payments/webhook': { POST: { status: { anonymous: 400, learner: 400, mentor: 400, author: 400, admin: 400 } } }
 };

@@ -98,7 +98,7 @@ describe('review queue API', () => {
 		});
 		expect(row.createdAt).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{6}Z$/);
 		expect(JSON.stringify(body)).not.toMatch(/email|password|submission/i);
-		expect(body.query).toEqual({ status: 'open', sort: 'queue', course: '', assignment: '', age: '', limit: 100 });
+		expect(body.query).toEqual({ status: 'open', sort: 'queue', course: '', assignment: '', age: '', cohort: '', limit: 100 });
 	});
 
 	test('sorts: oldest and newest first, ignoring the verdict', async () => {

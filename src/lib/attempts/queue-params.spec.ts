@@ -4,7 +4,7 @@ import { DEFAULT_LIMIT, MAX_LIMIT, queueSearch, readQueueParams } from './queue-
 
 describe('review queue params', () => {
 	it('defaults to the open queue, needs-review first', () => {
-		expect(readQueueParams(new URLSearchParams())).toEqual({ status: 'open', sort: 'queue', course: '', assignment: '', age: '', limit: DEFAULT_LIMIT, cursor: '' });
+		expect(readQueueParams(new URLSearchParams())).toEqual({ status: 'open', sort: 'queue', course: '', assignment: '', age: '', cohort: '', limit: DEFAULT_LIMIT, cursor: '' });
 	});
 
 	it('falls back on unknown values and caps the page size', () => {
@@ -14,7 +14,7 @@ describe('review queue params', () => {
 	});
 
 	it('round-trips through the query string, leaving defaults out', () => {
-		const p = { status: 'reviewed', sort: 'newest', course: 'daylight-flash-for-action', assignment: 'dim-the-sky', age: 'week', limit: 10, cursor: 'abc' } as const;
+		const p = { status: 'reviewed', sort: 'newest', course: 'daylight-flash-for-action', assignment: 'dim-the-sky', age: 'week', cohort: 'spring-evenings-2027', limit: 10, cursor: 'abc' } as const;
 		const search = queueSearch(p);
 		expect(readQueueParams(new URLSearchParams(search.slice(1)))).toEqual(p);
 		expect(queueSearch({ status: 'open', sort: 'queue', limit: DEFAULT_LIMIT })).toBe('');

@@ -27,6 +27,8 @@ export interface QueueParams {
 	/** assignment slug, or '' for every assignment */
 	assignment: string;
 	age: QueueAge;
+	/** cohort slug, or '' for every learner */
+	cohort: string;
 	limit: number;
 	/** opaque, from the previous page's nextCursor */
 	cursor: string;
@@ -51,6 +53,7 @@ export function readQueueParams(search: URLSearchParams): QueueParams {
 		course: slug('course'),
 		assignment: slug('assignment'),
 		age: oneOf(search.get('age'), QUEUE_AGES, ''),
+		cohort: slug('cohort'),
 		limit: Number.isInteger(limit) && limit >= 1 ? Math.min(limit, MAX_LIMIT) : DEFAULT_LIMIT,
 		cursor: (search.get('cursor') ?? '').slice(0, 400)
 	};
@@ -64,6 +67,7 @@ export function queueSearch(params: Partial<QueueParams>): string {
 	if (params.course) out.set('course', params.course);
 	if (params.assignment) out.set('assignment', params.assignment);
 	if (params.age) out.set('age', params.age);
+	if (params.cohort) out.set('cohort', params.cohort);
 	if (params.limit && params.limit !== DEFAULT_LIMIT) out.set('limit', String(params.limit));
 	if (params.cursor) out.set('cursor', params.cursor);
 	const text = out.toString();

@@ -35,7 +35,9 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
 	'plan.approve': 'Shoot Plan approved',
 	'plan.return': 'Shoot Plan sent back',
 	'credential.revoke': 'Certificate revoked',
-	'credential.rules': 'Certificate rules changed'
+	'credential.rules': 'Certificate rules changed',
+	'field-day.schedule': 'Field day scheduled',
+	'field-day.change': 'Field day changed'
 };
 
 /**

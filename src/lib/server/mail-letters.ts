@@ -6,7 +6,7 @@ function escapeHtml(s: string): string {
 }
 
 /** Paragraphs become the text part; the same paragraphs, escaped, with the link as a button, the HTML part. */
-function compose(to: string, subject: string, paragraphs: string[], link?: { href: string; label: string }): Letter {
+export function compose(to: string, subject: string, paragraphs: string[], link?: { href: string; label: string }): Letter {
 	const text = [...paragraphs, ...(link ? [`${link.label}: ${link.href}`] : []), '— Stopwise'].join('\n\n');
 	const body = paragraphs.map((p) => `<p style="margin:0 0 14px">${escapeHtml(p)}</p>`).join('');
 	const button = link

@@ -1,7 +1,8 @@
 // Sends e-mail through nodemailer over SMTP: a real server from SMTP_* env vars, else the local fake.
 import nodemailer, { type Transporter } from 'nodemailer';
 
-export type Letter = { to: string; subject: string; text: string; html: string };
+/** `icalEvent`: an RFC 5545 calendar sent as the message's text/calendar part and an `.ics` attachment (nodemailer's option). */
+export type Letter = { to: string; subject: string; text: string; html: string; icalEvent?: { method: string; filename: string; content: string } };
 export type SendResult = { ok: true } | { ok: false; reason: string };
 
 /** Port of the fake SMTP server in fakes/smtp (bootstrap sets it per mode; 2525 otherwise). */

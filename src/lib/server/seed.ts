@@ -8,6 +8,8 @@ import { assignments, coupons, courses, lessons, modules, users, type Role } fro
 import { readCatalogue } from './lessons/catalogue';
 import { hashPassword } from './password';
 import { ensureIssuerKey } from './credentials/keys';
+import { seedDemoFieldDays } from './field-days/demo';
+import { seedDemoCohort } from './cohorts/demo';
 
 type DemoAccount = { role: Role; name: string; email: string; password: string; roles: Role[] };
 
@@ -104,4 +106,7 @@ export async function seedDemo(db: Db, root = process.cwd()): Promise<void> {
 		// the school's signing key for certificates, made on the first start and kept from then on
 		await ensureIssuerKey(tx);
 	});
+	// the demo's field days name its course, Assignments and mentor, so they come after them
+	await seedDemoFieldDays(db);
+	await seedDemoCohort(db);
 }

@@ -49,13 +49,18 @@ export function learnerScreens(attemptHref?: string): Screen[] {
 		...(attemptHref ? [{ name: 'verdict', path: attemptHref, heading: /^Off the axis$/ }] : []),
 		{ name: 'progress', path: '/progress', heading: /^Your progress$/ },
 		{ name: 'account', path: '/account' },
-		{ name: 'billing', path: '/account/billing' }
+		{ name: 'billing', path: '/account/billing' },
+		{ name: 'field-days', path: '/field-days', heading: /^Field days$/ },
+		{ name: 'cohort', path: '/cohort', heading: /^Your cohort$/ },
+		{ name: 'field-day', path: '/field-days/trail-running-first-light', heading: /^Trail running at first light \(demo\)$/ }
 	];
 }
 
 export const mentorScreens: Screen[] = [
 	{ name: 'mentor-queue', path: '/mentor', heading: /^Review queue$/ },
-	{ name: 'mentor-plans', path: '/mentor/plans', heading: /^Shoot Plans waiting$/ }
+	{ name: 'mentor-plans', path: '/mentor/plans', heading: /^Shoot Plans waiting$/ },
+	{ name: 'mentor-field-days', path: '/mentor/field-days', heading: /^Field days on duty$/ },
+	{ name: 'mentor-roll-call', path: '/mentor/field-days/trail-running-first-light', heading: /^Roll call$/ }
 ];
 
 /** The author's pages for the demo lesson "Off the axis" (ids looked up in the database). */
@@ -63,6 +68,7 @@ export async function authorScreens(sql: Sql): Promise<Screen[]> {
 	const [lesson] = await sql<{ id: number; title: string }[]>`select id, title from lessons where slug = ${LESSON}`;
 	const [assignment] = await sql<{ id: number }[]>`select id from assignments where slug = ${LESSON}`;
 	const [withClip] = await sql<{ id: number }[]>`select id from lessons where slug = 'metering-and-going-under'`;
+	const [fieldDay] = await sql<{ id: number }[]>`select id from field_days where slug = 'bmx-flatland-afternoon'`;
 	const escaped = lesson.title.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 	return [
 		{ name: 'author-tree', path: '/author', heading: /^Lessons$/ },
@@ -72,7 +78,10 @@ export async function authorScreens(sql: Sql): Promise<Screen[]> {
 		{ name: 'author-assignment', path: `/author/assignments/${assignment.id}`, heading: /^Assignment$/ },
 		{ name: 'author-new-lesson', path: '/author/lessons/new' },
 		{ name: 'author-new-assignment', path: `/author/lessons/${lesson.id}/assignments/new` },
-		{ name: 'author-certificates', path: '/author/certificates', heading: /^Certificate rules$/ }
+		{ name: 'author-certificates', path: '/author/certificates', heading: /^Certificate rules$/ },
+		{ name: 'author-field-days', path: '/author/field-days', heading: /^Field days$/ },
+		{ name: 'author-new-field-day', path: '/author/field-days/new', heading: /^Schedule a field day$/ },
+		{ name: 'author-field-day', path: `/author/field-days/${fieldDay.id}`, heading: /^BMX flatland afternoon \(demo\)$/ }
 	];
 }
 

@@ -8,6 +8,10 @@ import { sweepUploads } from './uploads/sweep';
 import { startDeliveryWorker } from '../learning-records/worker';
 import { transcodeClip, type TranscodeJobData } from '../clips/transcode-job';
 import { GRADE_FAILED_QUEUE, GRADE_QUEUE, SWEEP_CRON, SWEEP_QUEUE, TRANSCODE_QUEUE, openQueue, queueGrading, registerLocalWorker, WAKE_CHANNEL, type GradeJobData, type QueueOptions } from './queue';
+import { expireSeatHold } from '../field-days/booking';
+import { publicOrigin } from '../field-days/follow-ups';
+import { ensureFieldDayQueues, SEAT_EXPIRY_QUEUE, type SeatExpiryJob } from '../field-days/jobs';
+import { ensureReminderQueue, REMINDER_CRON, REMINDER_QUEUE, sendDueReminders } from '../cohorts/reminders';
 
 // a fallback only: a sent job wakes the worker at once
 const POLLING_SECONDS = 2;
@@ -67,6 +71,17 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 
 	// learning records (xAPI statements) are sent by the same processes that grade
 	const delivery = await startDeliveryWorker(boss);
+	// a field-day seat held for a checkout or offered from the waiting list runs out at its time limit
+	await ensureFieldDayQueues(boss);
+	const seatId = await boss.work<SeatExpiryJob>(SEAT_EXPIRY_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async ([job]) => {
+		const bookingId = Number(job.data?.bookingId);
+		return { outcome: Number.isInteger(bookingId) ? await expireSeatHold(bookingId, publicOrigin()) : 'nothing' };
+	});
+
+	// reminders before cohort due dates, hourly
+	await ensureReminderQueue(boss);
+	await boss.schedule(REMINDER_QUEUE, REMINDER_CRON);
+	const reminderId = await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds: 30, batchSize: 1 }, async () => ({ sent: await sendDueReminders(publicOrigin()) }));
 
 	// one clip at a time per process: ffmpeg uses every core it is given
 	const transcodeId = await boss.work<TranscodeJobData>(TRANSCODE_QUEUE, { pollingIntervalSeconds: POLLING_SECONDS, batchSize: 1 }, async ([job]) => {
@@ -97,6 +112,8 @@ export async function startGradingWorker(options: WorkerOptions = {}): Promise<R
 			await boss.offWork({ id: sweepId });
 			await delivery.stop();
 			await boss.offWork({ id: transcodeId });
+			await boss.offWork({ id: seatId });
+			await boss.offWork({ id: reminderId });
 		}
 	};
 }

@@ -6,9 +6,9 @@ import {
 	index,
 	integer,
 	jsonb,
+	pgTable,
 	primaryKey,
 	real,
-	pgTable,
 	serial,
 	text,
 	timestamp,
@@ -487,7 +487,9 @@ export const auditActions = [
 	'plan.approve',
 	'plan.return',
 	'credential.revoke',
-	'credential.rules'
+	'credential.rules',
+	'field-day.schedule',
+	'field-day.change'
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 
@@ -666,3 +668,142 @@ export const issuedCredentials = pgTable(
 );
 export type IssuedCredential = typeof issuedCredentials.$inferSelect;
 // ---- end credentials ----
+
+// ---- field days ----
+
+/** An in-person day at a venue: seats, a price or inclusion with enrolment, the kit list and the safety briefing. */
+export const fieldDays = pgTable(
+	'field_days',
+	{
+		id: serial('id').primaryKey(),
+		slug: text('slug').notNull().unique(),
+		courseId: integer('course_id')
+			.notNull()
+			.references(() => courses.id, { onDelete: 'cascade' }),
+		/** the Assignment the day's frames are uploaded to (optional) */
+		assignmentId: integer('assignment_id').references(() => assignments.id, { onDelete: 'set null' }),
+		title: text('title').notNull(),
+		summary: text('summary').notNull().default(''),
+		startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
+		endsAt: timestamp('ends_at', { withTimezone: true }).notNull(),
+		/** IANA zone the times are shown in (the venue's) */
+		timeZone: text('time_zone').notNull(),
+		meetingPoint: text('meeting_point').notNull(),
+		latitude: real('latitude'),
+		longitude: real('longitude'),
+		seats: integer('seats').notNull(),
+		/** 0 with `includedWithEnrolment`: enrolled learners book without paying */
+		priceCents: integer('price_cents').notNull().default(0),
+		currency: text('currency').notNull().default('usd'),
+		includedWithEnrolment: boolean('included_with_enrolment').notNull().default(false),
+		/** a cancellation at least this many hours before the start is refunded in full; later, not at all */
+		refundHours: integer('refund_hours').notNull().default(48),
+		kitList: text('kit_list').notNull().default(''),
+		safetyBriefing: text('safety_briefing').notNull(),
+		mentorIds: text('mentor_ids').array().notNull().default(sql`'{}'::text[]`),
+		status: text('status', { enum: ['scheduled', 'cancelled'] }).notNull().default('scheduled'),
+		createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('field_days_starts_idx').on(t.startsAt)]
+);
+export type FieldDay = typeof fieldDays.$inferSelect;
+
+export const bookingStatuses = ['held', 'booked', 'waiting', 'offered', 'cancelled'] as const;
+export type BookingStatus = (typeof bookingStatuses)[number];
+
+/**
+ * One row per learner and field day, changed in place: its id makes the calendar event's UID and `sequence` rises with
+ * every change the learner is told of. `held` and `offered` keep a seat until `holdUntil`.
+ */
+export const fieldDayBookings = pgTable(
+	'field_day_bookings',
+	{
+		id: serial('id').primaryKey(),
+		fieldDayId: integer('field_day_id')
+			.notNull()
+			.references(() => fieldDays.id, { onDelete: 'cascade' }),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		status: text('status', { enum: bookingStatuses }).notNull(),
+		/** checkout in progress (held) or a freed seat offered: the seat is kept until then */
+		holdUntil: timestamp('hold_until', { withTimezone: true }),
+		waitingSince: timestamp('waiting_since', { withTimezone: true }),
+		checkoutSessionId: text('checkout_session_id').unique(),
+		paymentIntentId: text('payment_intent_id'),
+		amountCents: integer('amount_cents').notNull().default(0),
+		refundedCents: integer('refunded_cents').notNull().default(0),
+		briefingAcknowledgedAt: timestamp('briefing_acknowledged_at', { withTimezone: true }),
+		/** the participant heard the briefing again at the venue and said so from their phone */
+		briefingOnDayAt: timestamp('briefing_on_day_at', { withTimezone: true }),
+		/** set by the mentor on duty at roll call */
+		attendedAt: timestamp('attended_at', { withTimezone: true }),
+		/** RFC 5545 SEQUENCE of this learner's event */
+		sequence: integer('sequence').notNull().default(0),
+		bookedAt: timestamp('booked_at', { withTimezone: true }),
+		cancelledAt: timestamp('cancelled_at', { withTimezone: true }),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [uniqueIndex('field_day_bookings_person_idx').on(t.fieldDayId, t.userId), index('field_day_bookings_status_idx').on(t.fieldDayId, t.status)]
+);
+export type FieldDayBooking = typeof fieldDayBookings.$inferSelect;
+
+/** A learner's private calendar feed: the secret in its URL, kept so the page can show the address again; a reset replaces it. */
+export const calendarFeeds = pgTable('calendar_feeds', {
+	userId: text('user_id')
+		.primaryKey()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	token: text('token').notNull().unique(),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+// ---- end field days ----
+
+// ---- cohorts ----
+
+/** Learners who start a course together, with a mentor and a due date per Assignment. */
+export const cohorts = pgTable('cohorts', {
+	id: serial('id').primaryKey(),
+	slug: text('slug').notNull().unique(),
+	title: text('title').notNull(),
+	courseId: integer('course_id')
+		.notNull()
+		.references(() => courses.id, { onDelete: 'cascade' }),
+	mentorId: text('mentor_id').references(() => users.id, { onDelete: 'set null' }),
+	startsAt: timestamp('starts_at', { withTimezone: true }).notNull(),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+export type Cohort = typeof cohorts.$inferSelect;
+
+export const cohortMembers = pgTable(
+	'cohort_members',
+	{
+		cohortId: integer('cohort_id')
+			.notNull()
+			.references(() => cohorts.id, { onDelete: 'cascade' }),
+		userId: text('user_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		joinedAt: timestamp('joined_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [primaryKey({ columns: [t.cohortId, t.userId] }), index('cohort_members_user_idx').on(t.userId)]
+);
+
+export const cohortDueDates = pgTable(
+	'cohort_due_dates',
+	{
+		cohortId: integer('cohort_id')
+			.notNull()
+			.references(() => cohorts.id, { onDelete: 'cascade' }),
+		assignmentId: integer('assignment_id')
+			.notNull()
+			.references(() => assignments.id, { onDelete: 'cascade' }),
+		dueAt: timestamp('due_at', { withTimezone: true }).notNull(),
+		/** when the reminder before this due date went out (once per cohort and Assignment) */
+		remindedAt: timestamp('reminded_at', { withTimezone: true })
+	},
+	(t) => [primaryKey({ columns: [t.cohortId, t.assignmentId] }), index('cohort_due_dates_due_idx').on(t.dueAt)]
+);
+// ---- end cohorts ----

@@ -8,6 +8,8 @@ import { checkDelivery, type CheckedDelivery } from './webhook-event';
 import { settleChargeRefunded, settleSessionExpired, settleSessionPaid, type Settled } from './settle';
 import { mailSettlement } from './receipts';
 import type { Tx } from './enrolments';
+import { isFieldDaySession, settleFieldDaySession, type FieldDaySettled } from '../field-days/payment';
+import { runFollowUps } from '../field-days/follow-ups';
 
 export type WebhookReply = {
 	status: number;
@@ -31,7 +33,7 @@ export async function receiveWebhook(rawBody: string, signature: string | null, 
 	if (checked.kind === 'malformed') return recordRejected(checked);
 	const event = checked.event;
 
-	let outcome: { duplicate: true } | { duplicate: false; settled: Settled };
+	let outcome: { duplicate: true } | { duplicate: false; settled: Settled | FieldDaySettled };
 	try {
 		outcome = await db.transaction(async (tx) => {
 			const stored = await tx
@@ -51,7 +53,8 @@ export async function receiveWebhook(rawBody: string, signature: string | null, 
 		return { status: 503, body: { received: false, error: 'try-again', message: 'Could not process the event just now.' } };
 	}
 	if (outcome.duplicate) return { status: 200, body: { received: true, duplicate: true } };
-	mailSettlement(outcome.settled, origin);
+	if (outcome.settled.change === 'field-day') await runFollowUps(outcome.settled.followUps, origin);
+	else mailSettlement(outcome.settled, origin);
 	return { status: 200, body: { received: true } };
 }
 
@@ -69,7 +72,11 @@ async function recordRejected(found: Extract<CheckedDelivery, { kind: 'malformed
 	return { status: 200, body: { received: true, rejected: true, message: found.reason } };
 }
 
-function settleEvent(tx: Tx, event: Stripe.Event): Promise<Settled> {
+function settleEvent(tx: Tx, event: Stripe.Event): Promise<Settled | FieldDaySettled> {
+	// a field-day seat is paid through the same checkout: its session says so in its metadata
+	if (event.type.startsWith('checkout.session.') && isFieldDaySession(event.data.object as Stripe.Checkout.Session)) {
+		return settleFieldDaySession(tx, event.data.object as Stripe.Checkout.Session);
+	}
 	switch (event.type) {
 		case 'checkout.session.completed':
 		case 'checkout.session.async_payment_succeeded':

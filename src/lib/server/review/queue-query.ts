@@ -5,6 +5,7 @@ import { assignments, courses, lessons, modules, type AttemptStatus, type Attemp
 import type { QueueParams } from '../../attempts/queue-params';
 import { frameFileHref } from '../attempts/files';
 import { decodeCursor, encodeCursor, type QueueCursor } from './cursor';
+import { cohortOptions } from '../cohorts/schedule';
 
 export interface QueueRow {
 	id: string;
@@ -18,6 +19,8 @@ export interface QueueRow {
 	reviewState: 'open' | 'reviewed';
 	createdAt: string;
 	thumb: string | null;
+	/** sent after the due date of a cohort the learner belongs to */
+	late: boolean;
 }
 
 export type QueueAnswer = { ok: true; rows: QueueRow[]; nextCursor: string | null } | { ok: false; message: string };
@@ -93,6 +96,7 @@ interface RawRow extends Record<string, unknown> {
 	course_slug: string;
 	course_title: string;
 	last_frame: string | null;
+	late: boolean;
 }
 
 /** `reviewerId`: the mentor asking; their own attempts (as a learner) are left out, since someone else reviews them. */
@@ -103,6 +107,8 @@ export async function fetchReviewQueue(params: QueueParams, reviewerId: string, 
 	if (allowed && allowed.length === 0) return { ok: true, rows: [], nextCursor: null };
 
 	const filters: SQL[] = [sql`a.user_id <> ${reviewerId}`];
+	// a cohort narrows the queue to its members
+	if (params.cohort) filters.push(sql`a.user_id in (select cm.user_id from cohort_members cm join cohorts co on co.id = cm.cohort_id where co.slug = ${params.cohort})`);
 	if (allowed) filters.push(sql`a.assignment_id in (${sql.join(allowed.map((id) => sql`${id}`), sql`, `)})`);
 	const { from, until } = ageBounds(params.age, now);
 	if (from) filters.push(sql`a.created_at >= ${from.toISOString()}::timestamptz`);
@@ -120,7 +126,9 @@ export async function fetchReviewQueue(params: QueueParams, reviewerId: string, 
 			to_char(p.created_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') as cursor_time,
 			a.status, a.verdict, a.auto_verdict, a.review_state,
 			u.name as learner, s.slug as assignment_slug, s.title as assignment_title, c.slug as course_slug, c.title as course_title,
-			(select f.name from attempt_frames f where f.attempt_id = a.id order by f.id desc limit 1) as last_frame
+			(select f.name from attempt_frames f where f.attempt_id = a.id order by f.id desc limit 1) as last_frame,
+			exists (select 1 from cohort_due_dates d join cohort_members cm on cm.cohort_id = d.cohort_id
+				where cm.user_id = a.user_id and d.assignment_id = a.assignment_id and d.due_at < a.created_at) as late
 		from (${sql.join(parts, sql` union all `)}) p
 		join attempts a on a.id = p.id
 		join users u on u.id = a.user_id
@@ -150,7 +158,8 @@ export async function fetchReviewQueue(params: QueueParams, reviewerId: string, 
 			autoVerdict: r.auto_verdict,
 			reviewState: r.review_state,
 			createdAt: r.cursor_time,
-			thumb: r.last_frame ? frameFileHref(r.id, r.last_frame, 'thumb') : null
+			thumb: r.last_frame ? frameFileHref(r.id, r.last_frame, 'thumb') : null,
+			late: Boolean(r.late)
 		}))
 	};
 }
@@ -165,5 +174,5 @@ export async function queueFilterOptions() {
 		.innerJoin(courses, eq(modules.courseId, courses.id))
 		.orderBy(courses.title, modules.position, lessons.position, assignments.position);
 	const courseList = [...new Map(rows.map((r) => [r.courseSlug, { slug: r.courseSlug, title: r.courseTitle }])).values()];
-	return { courses: courseList, assignments: rows.map((r) => ({ slug: r.slug, title: r.title, course: r.courseSlug })) };
+	return { courses: courseList, assignments: rows.map((r) => ({ slug: r.slug, title: r.title, course: r.courseSlug })), cohorts: await cohortOptions() };
 }
