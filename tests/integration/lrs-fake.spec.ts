@@ -16,7 +16,7 @@ let child: ChildProcess;
 let base: string;
 
 async function start(): Promise<void> {
-	child = spawn(process.execPath, [SERVER], { env: { ...process.env, FAKE_LRS_PORT: '0', FAKE_LRS_DIR: dir, FAKE_LRS_USER: 'k', FAKE_LRS_PASSWORD: 's', STOPWISE_LRS_ENDPOINT: '' }, stdio: ['ignore', 'pipe', 'inherit'] });
+	child = spawn(process.execPath, [SERVER], { env: { ...process.env, FAKE_LRS_PORT: '0', FAKE_LRS_DIR: dir, FAKE_LRS_USER: 'k', FAKE_LRS_PASSWORD: 's', STOPWISE_LRS_ENDPOINT: '', FAKE_LRS_CLEAR: '0' }, stdio: ['ignore', 'pipe', 'inherit'] });
 	const port = await new Promise<number>((resolve, reject) => {
 		let out = '';
 		child.stdout?.on('data', (c: Buffer) => {
