@@ -37,7 +37,10 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
 	'credential.revoke': 'Certificate revoked',
 	'credential.rules': 'Certificate rules changed',
 	'field-day.schedule': 'Field day scheduled',
-	'field-day.change': 'Field day changed'
+	'field-day.change': 'Field day changed',
+	'cohort.create': 'Cohort made',
+	'cohort.members': 'Cohort members changed',
+	'cohort.due-dates': 'Cohort due date set'
 };
 
 /**

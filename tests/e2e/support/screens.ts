@@ -69,6 +69,7 @@ export async function authorScreens(sql: Sql): Promise<Screen[]> {
 	const [assignment] = await sql<{ id: number }[]>`select id from assignments where slug = ${LESSON}`;
 	const [withClip] = await sql<{ id: number }[]>`select id from lessons where slug = 'metering-and-going-under'`;
 	const [fieldDay] = await sql<{ id: number }[]>`select id from field_days where slug = 'bmx-flatland-afternoon'`;
+	const [cohort] = await sql<{ id: number }[]>`select id from cohorts where slug = 'spring-evenings-2027'`;
 	const escaped = lesson.title.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 	return [
 		{ name: 'author-tree', path: '/author', heading: /^Lessons$/ },
@@ -81,7 +82,8 @@ export async function authorScreens(sql: Sql): Promise<Screen[]> {
 		{ name: 'author-certificates', path: '/author/certificates', heading: /^Certificate rules$/ },
 		{ name: 'author-field-days', path: '/author/field-days', heading: /^Field days$/ },
 		{ name: 'author-new-field-day', path: '/author/field-days/new', heading: /^Schedule a field day$/ },
-		{ name: 'author-field-day', path: `/author/field-days/${fieldDay.id}`, heading: /^BMX flatland afternoon \(demo\)$/ }
+		{ name: 'author-field-day', path: `/author/field-days/${fieldDay.id}`, heading: /^BMX flatland afternoon \(demo\)$/ },
+		{ name: 'author-cohort', path: `/author/cohorts/${cohort.id}`, heading: /^Spring evenings 2027 \(demo\)$/ }
 	];
 }
 
@@ -94,5 +96,6 @@ export const adminScreens: Screen[] = [
 	{ name: 'admin-mailbox', path: '/admin/mailbox', heading: /^Mailbox$/ },
 	{ name: 'admin-learning-records', path: '/admin/learning-records', heading: /^Learning records$/ },
 	{ name: 'admin-credentials', path: '/admin/credentials', heading: /^Certificates$/ },
-	{ name: 'admin-coupon', path: '/admin/coupons/HARBOR20' }
+	{ name: 'admin-coupon', path: '/admin/coupons/HARBOR20' },
+	{ name: 'admin-cohorts', path: '/author/cohorts', heading: /^Cohorts$/ }
 ];

@@ -489,7 +489,10 @@ export const auditActions = [
 	'credential.revoke',
 	'credential.rules',
 	'field-day.schedule',
-	'field-day.change'
+	'field-day.change',
+	'cohort.create',
+	'cohort.members',
+	'cohort.due-dates'
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 

@@ -3,6 +3,7 @@ import { and, asc, eq, gt, inArray, or, sql } from 'drizzle-orm';
 import { formatPrice } from '../../format';
 import { db } from '../db';
 import { assignments, courses, fieldDayBookings, fieldDays, lessons, type FieldDay } from '../db/schema';
+import { decideAccess, type Viewer } from '../lessons/access';
 import { isOnTheDay } from './roll-call';
 import { refundDeadline, refundRuleText } from './refund-rule';
 import { mustPay, waitingPosition } from './seats';
@@ -37,9 +38,11 @@ export async function listFieldDays(options: { upcomingOnly?: boolean } = {}): P
 	}));
 }
 
-export async function fieldDayPage(slug: string, userId: string) {
+/** The page of one field day for `viewer`; the upload link is offered only to those the lesson rule lets upload. */
+export async function fieldDayPage(slug: string, viewer: NonNullable<Viewer>) {
+	const userId = viewer.id;
 	const [found] = await db
-		.select({ day: fieldDays, taken: takenSql, course: { slug: courses.slug, title: courses.title } })
+		.select({ day: fieldDays, taken: takenSql, course: { id: courses.id, slug: courses.slug, title: courses.title } })
 		.from(fieldDays)
 		.innerJoin(courses, eq(courses.id, fieldDays.courseId))
 		.where(eq(fieldDays.slug, slug));
@@ -59,6 +62,8 @@ export async function fieldDayPage(slug: string, userId: string) {
 				.innerJoin(lessons, eq(lessons.id, assignments.lessonId))
 				.where(eq(assignments.id, day.assignmentId))
 		: [];
+	// the same rule as the upload page itself (an Assignment is never free), so the link never leads to a refusal
+	const mayUpload = upload ? (await decideAccess(viewer, { courseId: course.id, courseSlug: course.slug, free: false })) === 'open' : false;
 	const holdLive = own?.holdUntil ? own.holdUntil.getTime() > Date.now() : false;
 	const status = !own ? 'none' : (own.status === 'held' || own.status === 'offered') && !holdLive ? 'cancelled' : own.status;
 	return {
@@ -66,7 +71,7 @@ export async function fieldDayPage(slug: string, userId: string) {
 		slug: day.slug,
 		title: day.title,
 		summary: day.summary,
-		course,
+		course: { slug: course.slug, title: course.title },
 		when: whenText(day),
 		startsAtIso: day.startsAt.toISOString(),
 		timeZone: day.timeZone,
@@ -84,7 +89,7 @@ export async function fieldDayPage(slug: string, userId: string) {
 		dayStatus: day.status,
 		started: day.startsAt.getTime() <= Date.now(),
 		onTheDay: isOnTheDay(day),
-		upload: upload ? { title: upload.title, href: `/courses/${course.slug}/${upload.lesson}/assignments/${upload.slug}` } : null,
+		upload: upload ? { title: upload.title, href: `/courses/${course.slug}/${upload.lesson}/assignments/${upload.slug}`, allowed: mayUpload } : null,
 		booking: own
 			? {
 					status,

@@ -14,7 +14,7 @@ export const load: PageServerLoad = async (event) => {
 	// back from the payment page: settle now, so the seat never waits on the webhook
 	const paid = event.url.searchParams.get('paid');
 	const confirmed = paid ? await confirmFieldDayPayment(user, paid, event.url.origin) : null;
-	const day = await fieldDayPage(event.params.slug, user.id);
+	const day = await fieldDayPage(event.params.slug, user);
 	if (!day) error(404, { message: 'There is no such field day.' });
 	const checkout = event.url.searchParams.get('checkout');
 	const notice =
@@ -31,8 +31,8 @@ export const load: PageServerLoad = async (event) => {
 /** One shape for the page: a refusal or a confirmation. */
 const note = (message: string | null, done: string | null = null) => ({ message, done });
 
-async function fieldDayId(slug: string, userId: string) {
-	const day = await fieldDayPage(slug, userId);
+async function fieldDayId(slug: string, viewer: Parameters<typeof fieldDayPage>[1]) {
+	const day = await fieldDayPage(slug, viewer);
 	return day?.id ?? null;
 }
 
@@ -40,7 +40,7 @@ export const actions = {
 	book: async (event) => {
 		const user = requireUser(event);
 		const parsed = bookSchema.safeParse({ acknowledged: (await event.request.formData()).get('acknowledged') === 'on' });
-		const id = await fieldDayId(event.params.slug, user.id);
+		const id = await fieldDayId(event.params.slug, user);
 		if (id === null) return fail(404, { book: note('There is no such field day.') });
 		const outcome = await bookSeat(user, id, parsed.success && parsed.data.acknowledged, event.url.origin);
 		if (outcome.kind === 'refused') return fail(outcome.status, { book: note(outcome.message) });
@@ -50,7 +50,7 @@ export const actions = {
 	},
 	cancel: async (event) => {
 		const user = requireUser(event);
-		const id = await fieldDayId(event.params.slug, user.id);
+		const id = await fieldDayId(event.params.slug, user);
 		if (id === null) return fail(404, { cancel: note('There is no such field day.') });
 		const outcome = await cancelBooking(user, id, event.url.origin);
 		if (!outcome.ok) return fail(outcome.status, { cancel: note(outcome.message) });
@@ -59,7 +59,7 @@ export const actions = {
 	},
 	acknowledge: async (event) => {
 		const user = requireUser(event);
-		const id = await fieldDayId(event.params.slug, user.id);
+		const id = await fieldDayId(event.params.slug, user);
 		if (id === null) return fail(404, { acknowledge: note('There is no such field day.') });
 		const done = await acknowledgeOnDay(user, id);
 		if (!done.ok) return fail(done.status, { acknowledge: note(done.message) });
