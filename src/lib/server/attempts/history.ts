@@ -8,6 +8,7 @@ import type { AuthUser } from '../auth';
 import { canSeeAttempt, type Viewer } from './access';
 import { frameFileHref } from './files';
 import type { AssignmentCard } from '../../lessons/page-data';
+import { assignmentPath } from '$lib/attempts/paths';
 
 export interface AttemptSummary {
 	id: string;
@@ -89,7 +90,7 @@ export async function lessonAssignmentCards(
 			frames: checked.ok ? checked.spec.frames : [],
 			criteria: checked.ok ? checked.spec.criteria.map(describeCriterion) : [],
 			lastVerdict: latest.get(a.id) ?? null,
-			uploadHref: access === 'open' ? `/courses/${place.courseSlug}/${place.lessonSlug}/assignments/${a.slug}` : null
+			uploadHref: access === 'open' ? assignmentPath(place.courseSlug, place.lessonSlug, a.slug) : null
 		};
 	});
 }

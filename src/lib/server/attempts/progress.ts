@@ -4,6 +4,7 @@ import { db } from '../db/index';
 import { assignments, attempts, courses, lessons, modules, type AttemptVerdict } from '../db/schema';
 import type { CriterionResult } from '../grading/index';
 import type { StoredResult } from './grade-job';
+import { assignmentPath } from '$lib/attempts/paths';
 
 /** Which colour a criterion belongs to on the chart: what the ambient does, or what the flash does. */
 const FLASH_KINDS = new Set(['subject-lift', 'flash-evidence']);
@@ -113,7 +114,7 @@ export async function loadProgress(userId: string): Promise<ProgressPoint[]> {
 			at: r.gradedAt!.toISOString(),
 			assignment: r.assignment,
 			assignmentSlug: r.assignmentSlug,
-			assignmentHref: `/courses/${r.courseSlug}/${r.lessonSlug}/assignments/${r.assignmentSlug}`,
+			assignmentHref: assignmentPath(r.courseSlug, r.lessonSlug, r.assignmentSlug),
 			number: r.number,
 			verdict: r.verdict,
 			...summariseResult(r.result!.criteria)

@@ -9,6 +9,7 @@ import { findAssignmentById } from './assignment';
 import { frameFileHref } from './files';
 import { clippedCells, describeFlashUsed, evidenceRows, exifRows, formatMeasured, formatTargetOf, type ClippedCells, type ExifRow } from './format-result';
 import type { StoredAnalysis, StoredResult } from './grade-job';
+import { assignmentPath } from '$lib/attempts/paths';
 
 export interface FrameView {
 	name: string;
@@ -143,7 +144,7 @@ export async function loadAttemptView(viewer: Viewer, attemptId: string): Promis
 		gradedAt: a.gradedAt,
 		mine,
 		learner: { name: row.learnerName, email: row.learnerEmail },
-		assignment: { slug: assignment.slug, title: assignment.title, uploadHref: assignmentPageHref(assignment) },
+		assignment: { slug: assignment.slug, title: assignment.title, uploadHref: assignmentPath(assignment.course.slug, assignment.lesson.slug, assignment.slug) },
 		lesson: assignment.lesson,
 		course: { slug: assignment.course.slug, title: assignment.course.title },
 		subjectBox: a.subjectBox,
@@ -157,9 +158,4 @@ export async function loadAttemptView(viewer: Viewer, attemptId: string): Promis
 		// the learner sees why their verdict changed only with the review itself
 		overrides: showReview ? overrideRows.map((o) => ({ before: o.verdictBefore, after: o.verdictAfter, reason: o.reason, mentor: mine ? 'your mentor' : o.mentorEmail, at: o.createdAt })) : []
 	};
-}
-
-/** The upload and history page of an assignment. */
-export function assignmentPageHref(a: { slug: string; lesson: { slug: string }; course: { slug: string } }): string {
-	return `/courses/${a.course.slug}/${a.lesson.slug}/assignments/${a.slug}`;
 }

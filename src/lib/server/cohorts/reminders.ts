@@ -6,6 +6,7 @@ import { db } from '../db';
 import { assignments, cohortDueDates, cohortMembers, cohorts, courses, lessons, users } from '../db/schema';
 import { sendLetter } from '../mail';
 import { compose } from '../mail-letters';
+import { assignmentPath } from '../../attempts/paths';
 
 export const REMINDER_QUEUE = 'cohort-due-reminders';
 export const REMINDER_CRON = '7 * * * *';
@@ -45,7 +46,7 @@ export async function sendDueReminders(origin: string, now = new Date()): Promis
 			);
 		const when = new Intl.DateTimeFormat('en', { dateStyle: 'full', timeStyle: 'short', timeZone: 'UTC' }).format(due.dueAt);
 		for (const m of members) {
-			const href = `${origin}/courses/${m.course}/${m.lesson}/assignments/${m.assignmentSlug}`;
+			const href = `${origin}${assignmentPath(m.course, m.lesson, m.assignmentSlug)}`;
 			const result = await sendLetter(
 				compose(m.email, `Due soon: ${m.assignment}`, [`Hello ${m.name},`, `Your cohort “${m.cohort}” has “${m.assignment}” due on ${when} UTC. Send your frames before then so your mentor can critique them with the group’s.`], { href, label: 'Open the Assignment' })
 			);

@@ -2,6 +2,7 @@
 import { and, asc, eq, sql } from 'drizzle-orm';
 import { db } from '../db';
 import { assignments, cohortDueDates, cohortMembers, cohorts, courses, lessons, users } from '../db/schema';
+import { assignmentPath } from '$lib/attempts/paths';
 
 export type DueState = 'submitted' | 'due' | 'overdue';
 
@@ -34,7 +35,7 @@ export async function learnerCohorts(userId: string, now = new Date()) {
 	const byCohort = new Map<number, { slug: string; title: string; course: { slug: string; title: string }; mentor: string | null; items: { assignment: string; href: string; dueAt: Date; state: DueState }[] }>();
 	for (const r of rows) {
 		const entry = byCohort.get(r.cohort.id) ?? { slug: r.cohort.slug, title: r.cohort.title, course: r.course, mentor: r.mentor, items: [] };
-		entry.items.push({ assignment: r.assignment.title, href: `/courses/${r.course.slug}/${r.lesson}/assignments/${r.assignment.slug}`, dueAt: r.dueAt, state: dueState(r.dueAt, r.firstAttemptAt, now) });
+		entry.items.push({ assignment: r.assignment.title, href: assignmentPath(r.course.slug, r.lesson, r.assignment.slug), dueAt: r.dueAt, state: dueState(r.dueAt, r.firstAttemptAt, now) });
 		byCohort.set(r.cohort.id, entry);
 	}
 	return [...byCohort.values()];

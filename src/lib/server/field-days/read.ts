@@ -9,6 +9,7 @@ import { refundDeadline, refundRuleText } from './refund-rule';
 import { mustPay, waitingPosition } from './seats';
 import { whenText } from './follow-ups';
 import { instantToZoned } from './zoned-time';
+import { assignmentPath } from '$lib/attempts/paths';
 
 const takenSql = sql<number>`(select count(*)::int from ${fieldDayBookings} b where b.field_day_id = ${fieldDays.id} and (b.status = 'booked' or (b.status in ('held', 'offered') and b.hold_until > now())))`;
 
@@ -89,7 +90,7 @@ export async function fieldDayPage(slug: string, viewer: NonNullable<Viewer>) {
 		dayStatus: day.status,
 		started: day.startsAt.getTime() <= Date.now(),
 		onTheDay: isOnTheDay(day),
-		upload: upload ? { title: upload.title, href: `/courses/${course.slug}/${upload.lesson}/assignments/${upload.slug}`, allowed: mayUpload } : null,
+		upload: upload ? { title: upload.title, href: assignmentPath(course.slug, upload.lesson, upload.slug), allowed: mayUpload } : null,
 		booking: own
 			? {
 					status,

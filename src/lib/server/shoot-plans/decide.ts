@@ -7,6 +7,7 @@ import { shootPlans } from '../db/schema';
 import { sendLetter } from '../mail';
 import { shootPlanLetter } from '../mail-letters';
 import { loadPlanForMentor } from './read';
+import { assignmentPath } from '../../attempts/paths';
 
 export type DecideResult = { ok: true; mailed: boolean } | { ok: false; status: 403 | 404 | 409; message: string };
 
@@ -32,7 +33,7 @@ export async function decideShootPlan(mentor: { id: string; email: string }, pla
 		return true;
 	});
 	if (!decided) return { ok: false, status: 409, message: 'Another mentor has already decided on this plan, or the learner revised it. Reload to read it as it is now.' };
-	const href = `${origin}/courses/${found.course.slug}/${found.lesson.slug}/assignments/${found.assignment.slug}`;
+	const href = `${origin}${assignmentPath(found.course.slug, found.lesson.slug, found.assignment.slug)}`;
 	const mail = await sendLetter(shootPlanLetter(found.learner.email, found.learner.name, { assignment: found.assignment.title, approved, note: form.note, href }));
 	return { ok: true, mailed: mail.ok };
 }
