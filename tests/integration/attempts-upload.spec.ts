@@ -125,7 +125,7 @@ describe('POST /api/v1/attempts', () => {
 		try {
 			const { status, body } = await post(uploadData({ assignment: ASSIGNMENT, submissionKey: key() }, pair));
 			expect(status).toBe(413);
-			expect(body.message).toMatch(/^The file for “(reference|lit)” is larger than the limit of \d+ MB\./);
+			expect(body.message).toMatch(/^The “(reference|lit)” frame: This file is larger than the limit of \d+ [KM]B\./);
 		} finally {
 			if (previous === undefined) delete process.env.STOPWISE_MAX_UPLOAD_MB;
 			else process.env.STOPWISE_MAX_UPLOAD_MB = previous;

@@ -1,6 +1,6 @@
 // Client-side upload checks: messages for wrong type, size and missing frames; progress split per file.
 import { describe, expect, it } from 'vitest';
-import { ACCEPT, checkChosenFile, formatMegabytes, missingFramesMessage, progressPerFile } from './upload-checks';
+import { ACCEPT, checkChosenFile, formatMegabytes, missingFramesMessage, progressPerFile, tooLargeMessage } from './upload-checks';
 
 const MB = 1024 * 1024;
 
@@ -26,6 +26,11 @@ describe('checkChosenFile', () => {
 		expect(checkChosenFile({ name: 'a.jpg', type: 'image/jpeg', size: 41 * MB }, 40 * MB)).toBe(
 			'This file is 41 MB; the limit is 40 MB. Export a JPEG at full size and normal quality, which stays well under it.'
 		);
+		// a 45 MP camera's uncompressed raw runs past 40 MB: it is told about the JPEG beside it, not told to export one
+		expect(checkChosenFile({ name: 'DSC_0042.NEF', type: '', size: 52 * MB }, 40 * MB)).toBe(
+			'This raw file is 52 MB; the limit is 40 MB. Raw files from high-resolution cameras are often larger. Send the JPEG your camera writes beside the raw file (RAW+JPEG), or export a full-size JPEG without edits, the same way for every frame of the pair.'
+		);
+		expect(tooLargeMessage(null, 40 * MB, 'a.jpg')).toBe('This file is larger than the limit of 40 MB. Export a JPEG at full size and normal quality, which stays well under it.');
 	});
 });
 

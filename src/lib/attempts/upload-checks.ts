@@ -10,6 +10,13 @@ export const ACCEPT = [
 	RAW_EXTENSIONS.map((e) => `.${e}`).join(',')
 ].join(',');
 
+const RAW_NAME = new RegExp(`\\.(${RAW_EXTENSIONS.join('|')})$`, 'i');
+
+/** Whether a file's name is one a camera gives its raw files. */
+export function isRawFileName(name: string): boolean {
+	return RAW_NAME.test(name);
+}
+
 const MEASURABLE = new RegExp(`\\.(jpe?g|png|webp|tiff?|avif|heic|heif|${RAW_EXTENSIONS.join('|')})$`, 'i');
 const MEASURABLE_TYPES = new Set(['image/jpeg', 'image/png', 'image/webp', 'image/tiff', 'image/avif', 'image/heic', 'image/heif', 'image/x-adobe-dng']);
 
@@ -32,10 +39,22 @@ export function checkChosenFile(file: ChosenFile, maxBytes: number): string | nu
 	if (!MEASURABLE_TYPES.has(file.type) && !MEASURABLE.test(file.name)) {
 		return 'This is not a photo we can read. Upload a JPEG, HEIC or raw file (DNG and the raw formats of common cameras) straight from the camera or phone, or a PNG, WebP, TIFF or AVIF from your editor.';
 	}
-	if (file.size > maxBytes) {
-		return `This file is ${formatMegabytes(file.size)}; the limit is ${formatMegabytes(maxBytes)}. Export a JPEG at full size and normal quality, which stays well under it.`;
-	}
+	if (file.size > maxBytes) return tooLargeMessage(file.size, maxBytes, file.name);
 	return null;
+}
+
+/**
+ * Why a file over the limit is refused and what to send instead, in the same words wherever it is caught. Raw files of
+ * high-resolution cameras often pass the limit, so their advice names the JPEG the camera can write beside them; both
+ * frames of a pair must then be JPEGs made the same way, or the pair no longer compares.
+ */
+export function tooLargeMessage(size: number | null, maxBytes: number, name = '', raw = isRawFileName(name)): string {
+	const kind = raw ? 'raw file' : 'file';
+	const sizes = size === null ? `This ${kind} is larger than the limit of ${formatMegabytes(maxBytes)}.` : `This ${kind} is ${formatMegabytes(size)}; the limit is ${formatMegabytes(maxBytes)}.`;
+	if (raw) {
+		return `${sizes} Raw files from high-resolution cameras are often larger. Send the JPEG your camera writes beside the raw file (RAW+JPEG), or export a full-size JPEG without edits, the same way for every frame of the pair.`;
+	}
+	return `${sizes} Export a JPEG at full size and normal quality, which stays well under it.`;
 }
 
 /** The frames still without a file, as one message, or null when all are there. */

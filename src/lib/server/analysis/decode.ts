@@ -46,8 +46,8 @@ export function checkInput(bytes: Uint8Array, limits: InputLimits): FileType {
 	if (!(bytes instanceof Uint8Array) || bytes.length === 0) {
 		throw new FrameReadError('empty', 'The file is empty. Please choose the photo again.');
 	}
-	if (bytes.length > limits.maxBytes) throw tooLarge(bytes.length, limits.maxBytes);
 	const type = detectFileType(bytes);
+	if (bytes.length > limits.maxBytes) throw tooLarge(bytes.length, limits.maxBytes, type.kind === 'raw');
 	if (type.kind === 'unknown') {
 		throw new FrameReadError(
 			'unsupported-type',

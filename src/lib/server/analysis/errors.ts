@@ -1,4 +1,5 @@
 // Typed errors for frames we cannot read, each with a message written for the person who uploaded it.
+import { tooLargeMessage } from '../../attempts/upload-checks';
 
 export type FrameErrorCode =
 	| 'empty'
@@ -25,14 +26,10 @@ export function isFrameReadError(value: unknown): value is FrameReadError {
 	return value instanceof FrameReadError;
 }
 
-const MB = 1024 * 1024;
 
-export function tooLarge(size: number, maxBytes: number): FrameReadError {
-	const mb = (n: number) => `${(n / MB).toFixed(n < 10 * MB ? 1 : 0)} MB`;
-	return new FrameReadError(
-		'too-large',
-		`This file is ${mb(size)}; the limit is ${mb(maxBytes)}. Export a JPEG at full size and normal quality, which stays well under it.`
-	);
+/** `raw`: the bytes are a raw file's, whatever its name says. */
+export function tooLarge(size: number, maxBytes: number, raw = false): FrameReadError {
+	return new FrameReadError('too-large', tooLargeMessage(size, maxBytes, '', raw));
 }
 
 export function tooManyPixels(width: number | null, height: number | null, maxPixels: number): FrameReadError {

@@ -142,6 +142,14 @@ describe('readFrame', () => {
 		expect(error.code).toBe('too-large');
 		const big = Buffer.concat([bytes, Buffer.alloc(41 * MB)]);
 		expect((await rejection(readFrame(big))).code).toBe('too-large');
+		expect(error.message).toMatch(/Export a JPEG at full size/);
+	});
+
+	it('tells a raw file over the limit by its bytes and points to the JPEG the camera writes beside it', async () => {
+		const dng = makeDng({ width: 32, height: 32, subject: { stops: 0 }, background: { stops: 0 } });
+		const error = await rejection(readFrame(dng, { limits: { maxBytes: 1000 } }));
+		expect(error.code).toBe('too-large');
+		expect(error.message).toMatch(/^This raw file is .*RAW\+JPEG/);
 	});
 
 	it('honours a smaller pixel limit', async () => {

@@ -9,6 +9,7 @@ import { pipeline } from 'node:stream/promises';
 import type { ReadableStream as NodeWebStream } from 'node:stream/web';
 import busboy from 'busboy';
 import { uploadDir } from './uploads/folder';
+import { tooLargeMessage } from '../../attempts/upload-checks';
 
 export interface MultipartLimits {
 	/** bytes per file */
@@ -61,8 +62,8 @@ export async function readMultipartToDisk(request: Request, limits: MultipartLim
 		const path = join(folder, String(files.length));
 		files.push({ field, filename: info.filename ?? 'frame', mime: info.mimeType, path });
 		stream.on('limit', () => {
-			const mb = Math.round(limits.fileBytes / 2 ** 20);
-			refuse({ ok: false, reason: 'too-large', message: `The file for “${field.replace(/^frame:/, '').slice(0, 40)}” is larger than the limit of ${mb} MB. Export a JPEG at full size and normal quality, which stays well under it.` });
+			const frame = field.replace(/^frame:/, '').slice(0, 40);
+			refuse({ ok: false, reason: 'too-large', message: `The “${frame}” frame: ${tooLargeMessage(null, limits.fileBytes, info.filename ?? '')}` });
 		});
 		writes.push(pipeline(stream, createWriteStream(path)));
 	});

@@ -4,6 +4,7 @@ import { framePixelsProblem } from './frame-integrity';
 import { fileStore } from '../storage/index';
 import { frameKeys, mimeFor, MIME_TYPES } from './keys';
 import { maxUploadBytes } from './limits';
+import { tooLargeMessage } from '../../attempts/upload-checks';
 
 export interface CheckedFrame {
 	name: string;
@@ -26,7 +27,6 @@ export interface StoredFrame {
 	bytes: number;
 }
 
-const MB = 1024 * 1024;
 
 /** Per-frame problems in the learner's words; an empty object when every frame will do. */
 export type FrameProblems = Record<string, string>;
@@ -46,7 +46,7 @@ export async function checkFrames(names: readonly string[], files: Map<string, F
 			continue;
 		}
 		if (file.size > limit) {
-			problems[name] = `This file is ${(file.size / MB).toFixed(0)} MB; the limit is ${(limit / MB).toFixed(0)} MB. Export a JPEG at full size and normal quality, which stays well under it.`;
+			problems[name] = tooLargeMessage(file.size, limit, file.name);
 			continue;
 		}
 		const checked = await checkFrame(name, index, file, limit);

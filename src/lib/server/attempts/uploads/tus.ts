@@ -16,6 +16,7 @@ import { removeUploadFiles, uploadDir } from './folder';
 import { refusal, type Refusal } from './refusal';
 import { readUploadMetadata } from './metadata';
 import { deleteUploadRows, findUpload, markFinished, otherOpenSubmissions, recordUpload, uploadsOfSubmission } from './records';
+import { tooLargeMessage } from '../../../attempts/upload-checks';
 
 export const UPLOAD_PATH = '/api/v1/uploads';
 /** An upload not finished and made into an attempt within this time is swept (and answers 410 Gone before that). */
@@ -26,9 +27,8 @@ const OPEN_SUBMISSIONS = 3;
 type Uploader = Pick<AuthUser, 'id' | 'roles'>;
 export { refusal };
 
-function tooLarge(size: number): Refusal {
-	const mb = (bytes: number) => Math.round(bytes / 2 ** 20);
-	return refusal(413, 'too-large', `This file is ${mb(size)} MB; the limit is ${mb(maxUploadBytes())} MB. Export a JPEG at full size and normal quality, which stays well under it.`);
+function tooLarge(size: number, fileName?: string | null): Refusal {
+	return refusal(413, 'too-large', tooLargeMessage(size, maxUploadBytes(), fileName ?? ''));
 }
 
 // the signed-in person of each request in flight (the tus hooks receive only the request)
@@ -50,7 +50,7 @@ async function checkStart(req: Request, upload: Upload): Promise<{ metadata?: Up
 	if (!meta.ok) throw refusal(400, 'bad-request', meta.message);
 	if (upload.size === undefined) throw refusal(400, 'bad-request', 'Say the size of the frame when the upload starts (Upload-Length).');
 	const limit = maxUploadBytes();
-	if (upload.size > limit) throw tooLarge(upload.size);
+	if (upload.size > limit) throw tooLarge(upload.size, upload.metadata?.filename);
 	if (upload.size === 0) throw refusal(400, 'bad-request', 'This file is empty. Please choose the photo again.');
 
 	const assignment = await findAssignment(meta.assignment);
@@ -114,7 +114,8 @@ function createServer(): Server {
 				// tus checks the declared length against maxSize before our own check: answer in the same words
 				if (error.status_code === 413 && !error.body.startsWith('{')) {
 					const size = Number(req.headers.get('upload-length')) || Number.MAX_SAFE_INTEGER;
-					return /(^|,)\s*kind\s/.test(req.headers.get('upload-metadata') ?? '') ? clipTooLarge(size) : tooLarge(size);
+					const metadata = req.headers.get('upload-metadata') ?? '';
+					return /(^|,)\s*kind\s/.test(metadata) ? clipTooLarge(size) : tooLarge(size, declaredFileName(metadata));
 				}
 				return undefined;
 			}
@@ -123,6 +124,15 @@ function createServer(): Server {
 		}
 	};
 	return new Server(options);
+}
+
+/** The `filename` pair of a raw Upload-Metadata header (tus: comma-separated `key base64value` pairs), or ''. */
+function declaredFileName(header: string): string {
+	const value = header
+		.split(',')
+		.map((pair) => pair.trim().split(' '))
+		.find(([key]) => key === 'filename')?.[1];
+	return value ? Buffer.from(value, 'base64').toString('utf8').slice(0, 200) : '';
 }
 
 let server: Server | undefined;
