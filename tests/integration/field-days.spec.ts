@@ -12,7 +12,11 @@ import { courses, fieldDayBookings, fieldDays, users, type FieldDay } from '$lib
 import type { AuthUser } from '$lib/server/auth';
 import { bookSeat, cancelBooking, expireSeatHold } from '$lib/server/field-days/booking';
 import { changeFieldDay } from '$lib/server/field-days/schedule';
-import { fieldDayFormValues } from '$lib/server/field-days/read';
+import { callOffFieldDay } from '$lib/server/field-days/call-off';
+import { settleFieldDaySession } from '$lib/server/field-days/payment';
+import { auditLog } from '$lib/server/db/schema';
+import { getStripe } from '$lib/server/payments/stripe';
+import { fieldDayForEditing } from '$lib/server/field-days/read';
 import { bookingUid, feedOwner, feedToken, learnerFeed } from '$lib/server/field-days/calendar';
 import { SEAT_EXPIRY_QUEUE } from '$lib/server/field-days/jobs';
 import { acknowledgeOnDay, markAttendance, readRollCall } from '$lib/server/field-days/roll-call';
@@ -254,6 +258,102 @@ describe('a paid seat, its invitation, cancellation and refund', () => {
 	});
 });
 
+/** A seat bought through the payment fake and booked by its webhook. */
+async function paidSeat(p: AuthUser, day: FieldDay): Promise<void> {
+	const started = await bookSeat(p, day.id, true, origin);
+	expect(started.kind).toBe('pay');
+	await fetch((started as { url: string }).url, { method: 'POST', body: new URLSearchParams({ card: '4242 4242 4242 4242', action: 'pay' }), redirect: 'manual' });
+	await waitUntil(async () => (await bookingsOf(day.id)).some((b) => b.userId === p.id && b.status === 'booked'), 'the webhook books the seat');
+}
+
+/** What the payment fake's charge says was refunded, whatever our rows say. */
+async function refundedAtProvider(paymentIntentId: string): Promise<number> {
+	const intent = await getStripe()!.paymentIntents.retrieve(paymentIntentId, { expand: ['latest_charge'] });
+	return (intent.latest_charge as { amount_refunded: number }).amount_refunded;
+}
+
+describe('calling off a field day', () => {
+	const reason = 'Thunderstorms are forecast all morning and the venue closes its track in lightning (test).';
+
+	test('every place ends with the reason: the paid seat refunded in full past its deadline (once, even when called off twice), the queue told, bookings closed', async () => {
+		// the refund deadline (30 days before) has passed: a learner's own cancellation would get nothing back
+		const day = await makeDay({ seats: 1, priceCents: 3000, refundHours: 24 * 30 });
+		const [booked, waiting, late] = await people(3);
+		await paidSeat(booked, day);
+		expect(await bookSeat(waiting, day.id, true, origin)).toMatchObject({ kind: 'waiting' });
+		const author = { id: await userIdOf(demoAccount('author').email), email: demoAccount('author').email, roles: ['learner', 'author'] } as unknown as AuthUser;
+
+		expect(await callOffFieldDay(author, day.id, reason, origin)).toEqual({ ok: true, told: 2, refunded: 1, refundsLeft: 0 });
+		const [stored] = await db.select().from(fieldDays).where(eq(fieldDays.id, day.id));
+		expect(stored).toMatchObject({ status: 'cancelled', callOffReason: reason });
+		const rows = await bookingsOf(day.id);
+		const seat = rows.find((r) => r.userId === booked.id)!;
+		expect(seat).toMatchObject({ status: 'cancelled', refundedCents: 3000, sequence: 1 });
+		expect(rows.find((r) => r.userId === waiting.id)).toMatchObject({ status: 'cancelled', refundedCents: 0 });
+		expect(await refundedAtProvider(seat.paymentIntentId!)).toBe(3000);
+
+		const cancel = await calendarIn(booked.email, /Called off:/);
+		// RFC 5546 §3.2.5 CANCEL: same UID, higher SEQUENCE, STATUS:CANCELLED
+		expect(prop(cancel, 'METHOD')).toBe('CANCEL');
+		expect(prop(cancel, 'UID')).toBe(bookingUid(seat.id));
+		expect(prop(cancel, 'SEQUENCE')).toBe('1');
+		const seatMail = await waitForMail(booked.email, /Called off:/);
+		expect(seatMail.text).toContain('Thunderstorms are forecast');
+		expect(seatMail.text).toMatch(/\$30\.00 is on its way back to you in full/);
+		const queueMail = await waitForMail(waiting.email, /Called off:/);
+		expect(queueMail.text).toContain('Your place for it is cancelled.');
+
+		expect(await bookSeat(late, day.id, true, origin)).toMatchObject({ kind: 'refused', status: 409, message: 'This field day has been called off.' });
+		// again (a double click, or finishing after a failure): nothing more is refunded or written
+		expect(await callOffFieldDay(author, day.id, 'A second reason (test).', origin)).toEqual({ ok: true, told: 0, refunded: 0, refundsLeft: 0 });
+		expect(await refundedAtProvider(seat.paymentIntentId!)).toBe(3000);
+		const lines = await db.select().from(auditLog).where(eq(auditLog.subject, day.title));
+		expect(lines.filter((l) => l.action === 'field-day.call-off' && l.href === `/field-days/${day.slug}`)).toHaveLength(1);
+	});
+
+	test('a refund the payment service refuses keeps that seat until calling off again finishes it', async () => {
+		const day = await makeDay({ seats: 2, priceCents: 2500 });
+		const [p] = await people(1);
+		await paidSeat(p, day);
+		const author = { id: await userIdOf(demoAccount('author').email), email: demoAccount('author').email, roles: ['learner', 'author'] } as unknown as AuthUser;
+		const port = process.env.STRIPE_API_PORT;
+		process.env.STRIPE_API_PORT = '1';
+		try {
+			expect(await callOffFieldDay(author, day.id, reason, origin)).toEqual({ ok: true, told: 0, refunded: 0, refundsLeft: 1 });
+		} finally {
+			process.env.STRIPE_API_PORT = port;
+		}
+		expect((await bookingsOf(day.id))[0]).toMatchObject({ status: 'booked', refundedCents: 0 });
+		expect(await callOffFieldDay(author, day.id, reason, origin)).toEqual({ ok: true, told: 1, refunded: 1, refundsLeft: 0 });
+		expect((await bookingsOf(day.id))[0]).toMatchObject({ status: 'cancelled', refundedCents: 2500 });
+	});
+
+	test('a checkout open when the day is called off is closed, and a payment that still lands is refunded, never booked', async () => {
+		const day = await makeDay({ seats: 3, priceCents: 1800 });
+		const [p] = await people(1);
+		expect((await bookSeat(p, day.id, true, origin)).kind).toBe('pay');
+		const [held] = await bookingsOf(day.id);
+		expect(held.status).toBe('held');
+		const author = { id: await userIdOf(demoAccount('author').email), email: demoAccount('author').email, roles: ['learner', 'author'] } as unknown as AuthUser;
+		expect(await callOffFieldDay(author, day.id, reason, origin)).toEqual({ ok: true, told: 1, refunded: 0, refundsLeft: 0 });
+		expect((await bookingsOf(day.id))[0]).toMatchObject({ status: 'cancelled' });
+		await waitUntil(async () => (await getStripe()!.checkout.sessions.retrieve(held.checkoutSessionId!)).status === 'expired', 'the open checkout is expired');
+		// the provider's word that it was paid after all (a race with the expiry): the seat stays gone, the money goes back
+		const settled = await db.transaction((tx) =>
+			settleFieldDaySession(tx, { id: held.checkoutSessionId!, status: 'complete', payment_status: 'paid', payment_intent: 'pi_test_late', amount_total: 1800, metadata: { bookingId: String(held.id) } })
+		);
+		expect(settled).toMatchObject({ reason: 'paid after the day was called off: refunded', followUps: [{ kind: 'refund-late', bookingId: held.id, paymentIntentId: 'pi_test_late' }] });
+		expect((await bookingsOf(day.id))[0].status).toBe('cancelled');
+	});
+
+	test('a day that is over cannot be called off', async () => {
+		const day = await makeDay({ startsAt: new Date(Date.now() - 5 * 3_600_000), endsAt: new Date(Date.now() - 3_600_000) });
+		const author = { id: await userIdOf(demoAccount('author').email), email: demoAccount('author').email, roles: ['learner', 'author'] } as unknown as AuthUser;
+		expect(await callOffFieldDay(author, day.id, reason, origin)).toMatchObject({ ok: false, status: 409 });
+		expect(await callOffFieldDay(author, 2_000_000_000, reason, origin)).toMatchObject({ ok: false, status: 404 });
+	});
+});
+
 describe('the calendar', () => {
 	test('a changed field day keeps each learner’s UID and raises SEQUENCE, in the e-mail and the private feed', async () => {
 		const day = await makeDay({ seats: 3 });
@@ -264,7 +364,7 @@ describe('the calendar', () => {
 		expect(prop(first, 'SEQUENCE')).toBe('0');
 
 		const author = { id: await userIdOf(demoAccount('author').email), email: demoAccount('author').email, roles: ['learner', 'author'] } as unknown as AuthUser;
-		const values = (await fieldDayFormValues(day.id))!;
+		const { values } = (await fieldDayForEditing(day.id))!;
 		const moved = await changeFieldDay(author, day.id, { ...values, startsAt: values.startsAt.replace(/T\d{2}/, 'T05'), endsAt: values.endsAt }, origin);
 		expect(moved).toEqual({ ok: true, slug: day.slug });
 		const update = await calendarIn(p.email, /Changed:/);

@@ -52,6 +52,7 @@ const audiences: Record<string, Record<string, Audience>> = {
 	'/(mentor)/mentor/field-days/[slug]': { attend: 'mentor' },
 	'/(author)/author/field-days/new': { default: 'author' },
 	'/(author)/author/field-days/[id=integer]': { default: 'author' },
+	'/(author)/author/field-days/[id=integer]/call-off': { default: 'author' },
 	'/(author)/author/cohorts': { create: 'author' },
 	'/(author)/author/cohorts/[id=integer]': { addMember: 'author', removeMember: 'author', setDue: 'author' },
 	'/(public)/signup': { default: 'anyone' },

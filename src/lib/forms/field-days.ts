@@ -60,3 +60,10 @@ export const bookSchema = z.object({
 	/** an unticked box sends nothing */
 	acknowledged: z.boolean().default(false)
 });
+
+export const callOffSchema = z.object({
+	reason: z.string().trim().min(10, 'Say why in a sentence: every participant reads it (at least 10 characters).').max(500, 'Keep the reason under 500 characters.'),
+	/** an unticked box sends nothing */
+	confirmed: z.boolean().default(false).refine((v) => v, 'Tick the box to confirm: this cannot be undone.')
+});
+export type CallOffForm = z.infer<typeof callOffSchema>;

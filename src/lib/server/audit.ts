@@ -38,6 +38,7 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
 	'credential.rules': 'Certificate rules changed',
 	'field-day.schedule': 'Field day scheduled',
 	'field-day.change': 'Field day changed',
+	'field-day.call-off': 'Field day called off',
 	'cohort.create': 'Cohort made',
 	'cohort.members': 'Cohort members changed',
 	'cohort.due-dates': 'Cohort due date set'

@@ -490,6 +490,7 @@ export const auditActions = [
 	'credential.rules',
 	'field-day.schedule',
 	'field-day.change',
+	'field-day.call-off',
 	'cohort.create',
 	'cohort.members',
 	'cohort.due-dates'
@@ -705,6 +706,9 @@ export const fieldDays = pgTable(
 		safetyBriefing: text('safety_briefing').notNull(),
 		mentorIds: text('mentor_ids').array().notNull().default(sql`'{}'::text[]`),
 		status: text('status', { enum: ['scheduled', 'cancelled'] }).notNull().default('scheduled'),
+		/** when and why it was called off, as every participant is told */
+		calledOffAt: timestamp('called_off_at', { withTimezone: true }),
+		callOffReason: text('call_off_reason'),
 		createdBy: text('created_by').references(() => users.id, { onDelete: 'set null' }),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()

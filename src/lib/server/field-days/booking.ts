@@ -170,7 +170,7 @@ export async function cancelBooking(user: AuthUser, fieldDayId: number, origin: 
 	return { ok: true, refundedCents, currency: day.currency, was: result.was };
 }
 
-async function refundAtProvider(row: FieldDayBooking): Promise<{ ok: true } | { ok: false; message: string }> {
+export async function refundAtProvider(row: FieldDayBooking): Promise<{ ok: true } | { ok: false; message: string }> {
 	const stripe = getStripe();
 	if (!stripe) return { ok: false, message: 'Payments are not set up on this server, so the refund cannot be made now. Your seat is kept; try again later.' };
 	try {

@@ -7,13 +7,14 @@ import { sendInBackground, sendLetter } from '../mail';
 import { getStripe } from '../payments/stripe';
 import { bookingInvitation } from './calendar';
 import { scheduleSeatExpiry } from './jobs';
-import { fieldDayChangedLetter, seatBookedLetter, seatCancelledLetter, seatOfferedLetter } from './letters';
+import { fieldDayCalledOffLetter, fieldDayChangedLetter, seatBookedLetter, seatCancelledLetter, seatOfferedLetter } from './letters';
 import { mustPay } from './seats';
 
 export type FollowUp =
 	| { kind: 'invite'; bookingId: number }
 	| { kind: 'changed'; bookingId: number }
 	| { kind: 'cancelled'; bookingId: number }
+	| { kind: 'called-off'; bookingId: number; hadSeat: boolean }
 	| { kind: 'offer'; bookingId: number; until: Date }
 	| { kind: 'hold'; bookingId: number; until: Date }
 	| { kind: 'expire-session'; sessionId: string }
@@ -47,6 +48,9 @@ async function mail(f: FollowUp, origin: string): Promise<void> {
 	else if (f.kind === 'cancelled') {
 		const refunded = booking.refundedCents > 0 ? formatPrice(booking.refundedCents, day.currency) : null;
 		await sendLetter(seatCancelledLetter(email, name, { ...base, refunded }, ics()));
+	} else if (f.kind === 'called-off') {
+		const refunded = booking.refundedCents > 0 ? formatPrice(booking.refundedCents, day.currency) : null;
+		await sendLetter(fieldDayCalledOffLetter(email, name, { ...base, reason: day.callOffReason ?? '', refunded }, f.hadSeat ? ics() : null));
 	} else if (f.kind === 'offer') {
 		const until = `${new Intl.DateTimeFormat('en', { dateStyle: 'long', timeStyle: 'short', timeZone: day.timeZone }).format(f.until)} (${day.timeZone})`;
 		await sendLetter(seatOfferedLetter(email, name, { ...base, until, pay: mustPay(day) ? formatPrice(day.priceCents, day.currency) : null }));

@@ -1,4 +1,4 @@
-// The wording of field-day e-mails: a booked seat (with the invitation), a cancellation, a freed seat offered.
+// The wording of field-day e-mails: a booked seat (with the invitation), a cancellation, a freed seat offered, a day called off.
 import { compose } from '../mail-letters';
 import type { Letter } from '../mail';
 
@@ -60,4 +60,21 @@ export function fieldDayChangedLetter(to: string, name: string, d: Day, ics: str
 		),
 		icalEvent: { method: 'REQUEST', filename: 'field-day.ics', content: ics }
 	};
+}
+
+/** To everyone who had a seat, a hold, an offer or a place in the queue; only a seat had a calendar event to remove. */
+export function fieldDayCalledOffLetter(to: string, name: string, d: Day & { reason: string; refunded: string | null }, ics: string | null): Letter {
+	const letter = compose(
+		to,
+		`Called off: ${d.title}`,
+		[
+			`Hello ${name},`,
+			`We have called off “${d.title}” (${d.when}). ${d.reason}`,
+			ics ? 'Your seat is cancelled; the attached update removes it from your calendar.' : 'Your place for it is cancelled.',
+			d.refunded ? `${d.refunded} is on its way back to you in full.` : '',
+			'We are sorry. Other field days are listed on the site.'
+		].filter(Boolean),
+		{ href: d.href, label: 'See the field day' }
+	);
+	return ics ? { ...letter, icalEvent: { method: 'CANCEL', filename: 'field-day.ics', content: ics } } : letter;
 }

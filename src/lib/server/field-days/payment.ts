@@ -97,6 +97,9 @@ export async function settleFieldDaySession(tx: Tx, session: SessionFacts, now =
 	}
 	if (row.status === 'booked') return none('already settled');
 	const intent = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
+	if (day.status === 'cancelled') {
+		return intent ? { change: 'field-day', followUps: [{ kind: 'refund-late', bookingId: row.id, paymentIntentId: intent }], reason: 'paid after the day was called off: refunded' } : none('day called off');
+	}
 	// paid after the seat was let go (the hold ran out or the learner cancelled): booked if a seat is free, else refunded
 	if (row.status !== 'held' && row.status !== 'offered' && day.seats - (await takenSeats(tx, day.id, now)) <= 0) {
 		return intent ? { change: 'field-day', followUps: [{ kind: 'refund-late', bookingId: row.id, paymentIntentId: intent }], reason: 'paid too late: refunded' } : none('paid too late');

@@ -88,6 +88,7 @@ export async function fieldDayPage(slug: string, viewer: NonNullable<Viewer>) {
 		kitList: day.kitList,
 		safetyBriefing: day.safetyBriefing,
 		dayStatus: day.status,
+		calledOff: calledOffText(day),
 		started: day.startsAt.getTime() <= Date.now(),
 		onTheDay: isOnTheDay(day),
 		upload: upload ? { title: upload.title, href: assignmentPath(course.slug, upload.lesson, upload.slug), allowed: mayUpload } : null,
@@ -104,14 +105,19 @@ export async function fieldDayPage(slug: string, viewer: NonNullable<Viewer>) {
 	};
 }
 
-/** For the edit form: the stored day as the form's fields. */
-export async function fieldDayFormValues(id: number) {
+/** Why a day was called off, for the author's pages and the day's own page; null while it stands. */
+export function calledOffText(day: Pick<FieldDay, 'status' | 'callOffReason'>): string | null {
+	return day.status === 'cancelled' ? day.callOffReason || 'No reason was given.' : null;
+}
+
+/** For the edit page: the stored day as the form's fields, and why it was called off (null while it stands). */
+export async function fieldDayForEditing(id: number) {
 	const [row] = await db.select({ day: fieldDays, courseSlug: courses.slug }).from(fieldDays).innerJoin(courses, eq(courses.id, fieldDays.courseId)).where(eq(fieldDays.id, id));
 	if (!row) return null;
 	const { day } = row;
 	const assignment = day.assignmentId ? await db.query.assignments.findFirst({ where: (t, { eq }) => eq(t.id, day.assignmentId!) }) : null;
 	const mentors = day.mentorIds.length ? await db.query.users.findMany({ where: (t, { inArray }) => inArray(t.id, day.mentorIds) }) : [];
-	return {
+	const values = {
 		title: day.title,
 		slug: day.slug,
 		summary: day.summary,
@@ -131,6 +137,7 @@ export async function fieldDayFormValues(id: number) {
 		safetyBriefing: day.safetyBriefing,
 		mentorEmails: mentors.map((m) => m.email).join(', ')
 	};
+	return { values, calledOff: calledOffText(day) };
 }
 
 /** The learner's own field days, for the account page and the feed. */

@@ -5,5 +5,6 @@ import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'author');
-	return { days: await authorFieldDays(), notice: event.url.searchParams.get('notice') };
+	const count = (name: string) => Math.max(0, Math.trunc(Number(event.url.searchParams.get(name)) || 0));
+	return { days: await authorFieldDays(), notice: event.url.searchParams.get('notice'), told: count('told'), refunded: count('refunded') };
 };

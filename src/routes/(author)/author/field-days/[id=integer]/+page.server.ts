@@ -6,15 +6,16 @@ import { requireRole } from '$lib/server/guards';
 import { fieldDaySchema } from '$lib/forms/field-days';
 import { changeFieldDay } from '$lib/server/field-days/schedule';
 import { scheduleOptions } from '$lib/server/field-days/options';
-import { fieldDayFormValues } from '$lib/server/field-days/read';
+import { fieldDayForEditing } from '$lib/server/field-days/read';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	requireRole(event, 'author');
-	const values = await fieldDayFormValues(Number(event.params.id));
-	if (!values) error(404, { message: 'There is no such field day.' });
+	const found = await fieldDayForEditing(Number(event.params.id));
+	if (!found) error(404, { message: 'There is no such field day.' });
+	const { values, calledOff } = found;
 	const [options, form] = await Promise.all([scheduleOptions(), superValidate(values, zod4(fieldDaySchema), { id: 'field-day', errors: false })]);
-	return { options, form, title: values.title };
+	return { id: Number(event.params.id), options, form, title: values.title, calledOff };
 };
 
 export const actions = {
