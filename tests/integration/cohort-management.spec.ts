@@ -5,8 +5,8 @@ import { randomBytes } from 'node:crypto';
 import { and, eq, inArray, like } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { db } from '$lib/server/db';
-import { assignments, auditLog, cohortDueDates, cohorts, users } from '$lib/server/db/schema';
-import { addMember, cohortDetail, createCohort, removeMember, setDueDate } from '$lib/server/cohorts/manage';
+import { assignments, auditLog, cohortDueDates, cohorts, courses, enrolments, users } from '$lib/server/db/schema';
+import { addMember, clearDueDate, cohortDetail, createCohort, removeMember, setDueDate } from '$lib/server/cohorts/manage';
 import { sendDueReminders } from '$lib/server/cohorts/reminders';
 import { fieldDayPage } from '$lib/server/field-days/read';
 import { cohortSchema, dueDateSchema, memberSchema } from '$lib/forms/cohorts';
@@ -80,7 +80,11 @@ describe('members by e-mail', () => {
 	});
 
 	test('adding twice is harmless (one member, one audit line); removing twice likewise', async () => {
-		expect(await addMember(actor, cohortId, people.learner.email.toUpperCase())).toMatchObject({ ok: true, changed: true });
+		const added = await addMember(actor, cohortId, people.learner.email.toUpperCase());
+		expect(added).toMatchObject({ ok: true, changed: true });
+		// allowed before paying, but the author is told, and the member list shows it
+		expect(added.ok && added.message).toContain('not enrolled in the course yet');
+		expect((await cohortDetail(cohortId))!.members).toMatchObject([{ email: people.learner.email, enrolled: false }]);
 		expect(await addMember(actor, cohortId, people.learner.email)).toMatchObject({ ok: true, changed: false, message: `${people.learner.name} is already in Managed cohort (test).` });
 		expect((await cohortDetail(cohortId))!.members.map((m) => m.email)).toEqual([people.learner.email]);
 
@@ -126,8 +130,27 @@ describe('due dates', () => {
 		expect(await sendDueReminders(origin, dayBeforeMoved)).toBeGreaterThanOrEqual(1);
 		expect((await row())!.remindedAt?.toISOString()).toBe(dayBeforeMoved.toISOString());
 
+		// taken away: no row, no reminder; twice changes nothing
+		expect(await clearDueDate(actor, cohortId, assignment.id)).toEqual({ ok: true, changed: true, message: `${assignment.title} has no due date any more.` });
+		expect(await row()).toBeUndefined();
+		expect(await clearDueDate(actor, cohortId, assignment.id)).toMatchObject({ ok: true, changed: false });
+		expect(await sendDueReminders(origin, dayBeforeMoved)).toBe(0);
+
 		const lines = (await auditLines()).filter((l) => l.action === 'cohort.due-dates').map((l) => l.detail);
-		expect(lines).toEqual(['due 2027-09-20 23:00 UTC', '2027-09-20 23:00 UTC → 2027-09-27 23:00 UTC']);
+		expect(lines).toEqual(['due 2027-09-20 23:00 UTC', '2027-09-20 23:00 UTC → 2027-09-27 23:00 UTC', '2027-09-27 23:00 UTC → no due date']);
+	});
+
+	test('an enrolled member is shown as enrolled and told nothing more', async () => {
+		const course = (await db.query.courses.findFirst({ where: eq(courses.slug, 'daylight-flash-for-action') }))!;
+		await db.insert(enrolments).values({ userId: people.learner.id, courseId: course.id, status: 'active', source: 'admin' });
+		try {
+			await removeMember(actor, cohortId, people.learner.email);
+			const added = await addMember(actor, cohortId, people.learner.email);
+			expect(added).toEqual({ ok: true, changed: true, message: `${people.learner.name} joined Managed cohort (test).` });
+			expect((await cohortDetail(cohortId))!.members).toMatchObject([{ email: people.learner.email, enrolled: true }]);
+		} finally {
+			await db.delete(enrolments).where(eq(enrolments.userId, people.learner.id));
+		}
 	});
 });
 

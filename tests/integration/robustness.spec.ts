@@ -54,7 +54,7 @@ const audiences: Record<string, Record<string, Audience>> = {
 	'/(author)/author/field-days/[id=integer]': { default: 'author' },
 	'/(author)/author/field-days/[id=integer]/call-off': { default: 'author' },
 	'/(author)/author/cohorts': { create: 'author' },
-	'/(author)/author/cohorts/[id=integer]': { addMember: 'author', removeMember: 'author', setDue: 'author' },
+	'/(author)/author/cohorts/[id=integer]': { addMember: 'author', removeMember: 'author', setDue: 'author', clearDue: 'author' },
 	'/(public)/signup': { default: 'anyone' },
 	'/(public)/verify': { default: 'anyone' },
 	'/(public)/reset': { request: 'anyone', confirm: 'anyone' },

@@ -35,3 +35,7 @@ export const dueDateSchema = z.object({
 		.refine((s) => !Number.isNaN(Date.parse(`${s}:00Z`)), 'Pick a real date and time.')
 });
 export type DueDateForm = z.infer<typeof dueDateSchema>;
+
+/** Taking a due date away: only which Assignment. */
+export const clearDueSchema = dueDateSchema.pick({ assignmentId: true });
+export type ClearDueForm = z.infer<typeof clearDueSchema>;

@@ -4,7 +4,8 @@
 import { and, asc, arrayContains, count, desc, eq, sql } from 'drizzle-orm';
 import { recordAudit, type Actor } from '../audit';
 import { db } from '../db';
-import { assignments, cohortDueDates, cohortMembers, cohorts, courses, lessons, modules, users } from '../db/schema';
+import { assignments, cohortDueDates, cohortMembers, cohorts, courses, enrolments, lessons, modules, users } from '../db/schema';
+import { hasCourseAccess } from '../enrolment-access';
 import type { CohortForm } from '$lib/forms/cohorts';
 
 export type CohortSave = { ok: true; id: number } | { ok: false; field?: keyof CohortForm; message: string };
@@ -72,9 +73,10 @@ export async function cohortDetail(id: number) {
 	if (!cohort) return null;
 	const [members, dues] = await Promise.all([
 		db
-			.select({ email: users.email, name: users.name, joinedAt: cohortMembers.joinedAt })
+			.select({ email: users.email, name: users.name, joinedAt: cohortMembers.joinedAt, enrolled: sql<boolean>`${enrolments.id} is not null` })
 			.from(cohortMembers)
 			.innerJoin(users, eq(users.id, cohortMembers.userId))
+			.leftJoin(enrolments, and(eq(enrolments.userId, users.id), eq(enrolments.courseId, cohort.courseId), eq(enrolments.status, 'active')))
 			.where(eq(cohortMembers.cohortId, id))
 			.orderBy(asc(users.name)),
 		db
@@ -106,7 +108,9 @@ export async function addMember(actor: Actor, cohortId: number, email: string): 
 		await recordAudit(tx, actor, { action: 'cohort.members', subject: cohort.title, detail: `+${person.email}`, href: `/author/cohorts/${cohortId}` });
 		return true;
 	});
-	return added ? { ok: true, changed: true, message: `${person.name} joined ${cohort.title}.` } : { ok: true, changed: false, message: `${person.name} is already in ${cohort.title}.` };
+	// joining does not need enrolment (a school may add people before they pay), but the author is told what it means
+	const unpaid = !added || (await hasCourseAccess(person, cohort.courseId)) ? '' : ` They are not enrolled in the course yet: they see the cohort’s schedule, and can send Assignments once enrolled.`;
+	return added ? { ok: true, changed: true, message: `${person.name} joined ${cohort.title}.${unpaid}` } : { ok: true, changed: false, message: `${person.name} is already in ${cohort.title}.` };
 }
 
 export async function removeMember(actor: Actor, cohortId: number, email: string): Promise<Change> {
@@ -158,5 +162,22 @@ export async function setDueDate(actor: Actor, cohortId: number, assignmentId: n
 			href: `/author/cohorts/${cohortId}`
 		});
 		return { ok: true, changed: true, message: `${assignment.title} is now due ${utcText(dueAt)}.` } as const;
+	});
+}
+
+/** Takes one Assignment's due date away (its reminder with it); an Assignment without one changes nothing. */
+export async function clearDueDate(actor: Actor, cohortId: number, assignmentId: number): Promise<Change> {
+	const cohort = await cohortById(cohortId);
+	if (!cohort) return { ok: false, message: 'There is no such cohort.' };
+	return db.transaction(async (tx) => {
+		const [removed] = await tx
+			.delete(cohortDueDates)
+			.where(and(eq(cohortDueDates.cohortId, cohortId), eq(cohortDueDates.assignmentId, assignmentId)))
+			.returning({ dueAt: cohortDueDates.dueAt });
+		const [assignment] = await tx.select({ title: assignments.title }).from(assignments).where(eq(assignments.id, assignmentId));
+		const title = assignment?.title ?? 'That Assignment';
+		if (!removed) return { ok: true, changed: false, message: `${title} has no due date in ${cohort.title}.` } as const;
+		await recordAudit(tx, actor, { action: 'cohort.due-dates', subject: `${cohort.title}: ${title}`, detail: `${utcText(removed.dueAt)} → no due date`, href: `/author/cohorts/${cohortId}` });
+		return { ok: true, changed: true, message: `${title} has no due date any more.` } as const;
 	});
 }

@@ -3,9 +3,9 @@ import { error, fail } from '@sveltejs/kit';
 import { message, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
 import { requireRole } from '$lib/server/guards';
-import { dueDateSchema, memberSchema, type DueDateForm, type MemberForm } from '$lib/forms/cohorts';
+import { clearDueSchema, dueDateSchema, memberSchema, type ClearDueForm, type DueDateForm, type MemberForm } from '$lib/forms/cohorts';
 import type { Notice } from '$lib/forms/review';
-import { addMember, cohortDetail, removeMember, setDueDate } from '$lib/server/cohorts/manage';
+import { addMember, clearDueDate, cohortDetail, removeMember, setDueDate } from '$lib/server/cohorts/manage';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -37,6 +37,15 @@ export const actions = {
 		const form = await superValidate<DueDateForm, Notice>(event.request, zod4(dueDateSchema), { id: 'due-date' });
 		if (!form.valid) return fail(400, { form });
 		const done = await setDueDate(user, Number(event.params.id), form.data.assignmentId, new Date(`${form.data.dueAt}:00Z`));
+		if (!done.ok) return message(form, { text: done.message, ok: false }, { status: 400 });
+		return message(form, { text: done.message, ok: true });
+	},
+	// a plain post from a due date's row: its answer comes back as the due-date form's message
+	clearDue: async (event) => {
+		const user = requireRole(event, 'author');
+		const form = await superValidate<ClearDueForm, Notice>(event.request, zod4(clearDueSchema), { id: 'due-date' });
+		if (!form.valid) return fail(400, { form });
+		const done = await clearDueDate(user, Number(event.params.id), form.data.assignmentId);
 		if (!done.ok) return message(form, { text: done.message, ok: false }, { status: 400 });
 		return message(form, { text: done.message, ok: true });
 	}
