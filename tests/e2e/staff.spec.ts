@@ -23,6 +23,9 @@ async function signInAs(page: Page, role: string, redirectTo: string) {
 
 test.afterAll(async () => {
 	await sql`delete from lessons where title = ${lessonTitle}`;
+	await sql`delete from cohorts where slug = ${`e2e-cohort-${stamp}`}`;
+	await sql`delete from users where id = ${`e2e-cohort-${stamp}`}`;
+	await sql`delete from field_days where slug = ${`e2e-day-${stamp}`}`;
 	await sql`delete from audit_log where subject like ${`%${stamp}%`}`;
 	await sql.end();
 });
@@ -141,4 +144,52 @@ test('a refund appears in the audit log with its reason; the log filters and dow
 	expect(lines[1]).toContain('payment.refund');
 	expect(lines[1]).toContain(`asked within a week ${stamp}`);
 	await context.close();
+});
+
+test('an author runs a cohort with the forms: a member who has not paid yet, a due date set and taken away', async ({ page }) => {
+	await signInAs(page, 'author', '/author/cohorts');
+	await page.getByLabel('Name').fill(`E2E cohort ${stamp}`);
+	await page.getByLabel('Address part').fill(`e2e-cohort-${stamp}`);
+	await page.getByLabel('Start date').fill('2027-10-01');
+	await page.getByRole('button', { name: 'Make the cohort' }).click();
+	await expect(page.getByRole('heading', { level: 1, name: `E2E cohort ${stamp}` })).toBeVisible();
+
+	// a learner who has not paid for the course
+	const email = `e2e-cohort-${stamp}@test.example`;
+	await sql`insert into users (id, email, name, email_verified) values (${`e2e-cohort-${stamp}`}, ${email}, 'Cohort Tester (test)', true)`;
+	await page.getByLabel('Learner’s e-mail').fill(email);
+	await page.getByRole('button', { name: 'Add to the cohort' }).click();
+	await expect(page.getByText(/joined E2E cohort .* not enrolled in the course yet/)).toBeVisible();
+	await expect(page.getByTestId('member-not-enrolled')).toBeVisible();
+
+	await page.getByLabel('Assignment').selectOption({ index: 0 });
+	const title = (await page.getByLabel('Assignment').locator('option').first().textContent())!.trim();
+	await page.getByLabel('Due (UTC)').fill('2027-10-20T18:00');
+	await page.getByRole('button', { name: 'Set the due date' }).click();
+	await expect(page.getByText(`${title} is now due 2027-10-20 18:00 UTC.`)).toBeVisible();
+	await page.getByRole('button', { name: `Remove the due date of ${title}` }).click();
+	await expect(page.getByText(`${title} has no due date any more.`)).toBeVisible();
+	await expect(page.getByRole('button', { name: `Remove the due date of ${title}` })).toHaveCount(0);
+});
+
+test('an author calls off a field day with a reason, which the day’s page then shows', async ({ page }) => {
+	const slug = `e2e-day-${stamp}`;
+	const start = new Date(Date.now() + 20 * 86_400_000);
+	const [day] = await sql<{ id: number }[]>`
+		insert into field_days (slug, course_id, title, starts_at, ends_at, time_zone, meeting_point, seats, safety_briefing)
+		select ${slug}, id, ${`E2E rowing morning ${stamp}`}, ${start}, ${new Date(start.getTime() + 3 * 3_600_000)}, 'America/New_York', 'Boathouse slipway (test)', 4,
+			'Stands stay behind the marked line, bagged; no flash toward a crew in the last 20 metres; the venue marshal decides.'
+		from courses where slug = 'daylight-flash-for-action' returning id`;
+	await signInAs(page, 'author', `/author/field-days/${day.id}`);
+	await page.getByRole('link', { name: /Call off this field day/ }).click();
+	await expect(page.getByTestId('call-off-summary')).toContainText('Nobody has booked yet.');
+	await page.getByRole('button', { name: 'Call off the field day' }).click();
+	await expect(page.getByText('Tick the box to confirm: this cannot be undone.')).toBeVisible();
+	await page.getByLabel(/^Why/).fill('The river is in flood and the club has closed the slipway (test).');
+	await page.getByRole('checkbox').check();
+	await page.getByRole('button', { name: 'Call off the field day' }).click();
+	await expect(page).toHaveURL(/\/author\/field-days\?notice=called-off/);
+	await expect(page.getByText('Field day called off; nobody had a place to cancel.')).toBeVisible();
+	await page.goto(`/field-days/${slug}`);
+	await expect(page.getByTestId('called-off')).toContainText('The river is in flood');
 });

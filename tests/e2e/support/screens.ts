@@ -83,6 +83,7 @@ export async function authorScreens(sql: Sql): Promise<Screen[]> {
 		{ name: 'author-field-days', path: '/author/field-days', heading: /^Field days$/ },
 		{ name: 'author-new-field-day', path: '/author/field-days/new', heading: /^Schedule a field day$/ },
 		{ name: 'author-field-day', path: `/author/field-days/${fieldDay.id}`, heading: /^BMX flatland afternoon \(demo\)$/ },
+		{ name: 'author-field-day-call-off', path: `/author/field-days/${fieldDay.id}/call-off`, heading: /^Call off BMX flatland afternoon \(demo\)$/ },
 		{ name: 'author-cohort', path: `/author/cohorts/${cohort.id}`, heading: /^Spring evenings 2027 \(demo\)$/ }
 	];
 }
