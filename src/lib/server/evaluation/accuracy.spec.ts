@@ -6,8 +6,8 @@ import { makeCases } from './cases';
 import { runCase, score, type CaseOutcome } from './score';
 
 // one of each trouble: plain and camera-like curves, light and dark subjects, no flash, an edited frame, a clipped
-// sky, a gel with the white balance changed between frames, a subject blown out by the flash
-const PICKED = ['000', '007', '022', '052', '073', '091', '127'];
+// sky, a gel with the white balance changed between frames, a weak flash, a subject blown out by the flash
+const PICKED = ['000', '007', '022', '052', '072', '073', '091', '127'];
 const CASES = makeCases(128).filter((c) => PICKED.includes(c.id.slice(0, 3)));
 
 describe('evaluation subset', () => {
@@ -50,6 +50,16 @@ describe('evaluation subset', () => {
 		expect(share.verdict).toBe('unknown');
 		expect(share.message).toMatch(/cannot tell a picture style from an edited frame/);
 		expect(edited.criteria.find((c) => c.kind === 'background-drop')!.verdict).not.toBe('pass');
+	});
+
+	it('states only an upper bound for a weak flash’s share, one that holds the true ratio, and fails it', () => {
+		const weak = outcomes.find((o) => o.case.id.startsWith('072'))!;
+		expect(weak.truth.lift).toBeLessThan(0.3);
+		const share = weak.criteria.find((c) => c.kind === 'flash-share')!;
+		expect(share.verdict).toBe('fail');
+		expect(share.evidence?.upperBound).toBe(true);
+		expect(share.measured as number).toBeGreaterThanOrEqual(Math.log2(2 ** weak.truth.lift - 1));
+		expect(score(outcomes).every((s) => s.boundMisses === 0)).toBe(true);
 	});
 
 	it('passes a blown-out subject on its lower bound but does not claim to know the balance', () => {

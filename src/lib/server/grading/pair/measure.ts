@@ -50,6 +50,11 @@ export interface PairMeasure {
 	curveDoubt: number;
 	/** Why no lift could be measured although the box holds a subject (it is clipped in the reference); null otherwise. */
 	liftUnknownReason: string | null;
+	/**
+	 * Least lift a cell needs to count as flash-lit (stops). A lift measured within its uncertainty of this rests on the
+	 * cells the threshold let through, the top of the subject's spread, so the subject's own lift may be lower.
+	 */
+	cellThreshold: number;
 	/** Cells judged to be the flash-lit subject (and of the box, usable). */
 	subjectCells: number;
 	boxCells: number;
@@ -226,11 +231,14 @@ export function measurePair(
 			: null;
 	const liftIsLowerBound = enough && blownLifts.length >= subject.length;
 	const pick = (values: number[]) => quantile(values, LIFT_QUANTILE);
+	// most of the subject blown: each blown cell's value is only its least lift, and the median of per-cell least values
+	// is a least value of the subject's median (an upper quantile of them is not)
+	const pickBound = (values: number[]) => (liftIsLowerBound ? median(values) : pick(values));
 	const learned =
 		liftUnknownReason !== null || measured.length + blownLifts.length === 0
 			? null
 			: enough
-				? pick([...subject.map((c) => c.lift), ...blownLifts])
+				? pickBound([...subject.map((c) => c.lift), ...blownLifts])
 				: Math.max(0, quantile(measured.map((c) => c.lift), 0.75));
 	// the same cells read as plain sRGB: where the background's drop differs from the settings, the pair cannot tell a
 	// camera curve (the learned reading) from an edited frame (this reading), so the lift is only known between them
@@ -251,11 +259,14 @@ export function measurePair(
 	// a background drop no camera curve explains is an edited (or mis-tagged) frame: read the lift as plain sRGB then
 	const edited = d !== null && luma.calibration.slopeLearned && !curveCanExplain(luma.calibration.medianDrop, d);
 	const lift: number | null = edited && curveDoubt > 0 ? plain : learned;
-	const liftUncertainty =
+	const measuringUncertainty =
 		BASE_UNCERTAINTY +
 		(2 * (Number.isFinite(noise) ? noise : 0.2)) / Math.sqrt(Math.max(1, subject.length || measured.length)) +
 		slopeDoubt * Math.abs(learned ?? 0) +
 		curveDoubt;
+	// too few cells above the threshold to stand for the subject: its lift is below the threshold on nearly all of it,
+	// whatever the upper quartile read, so the stated range reaches up to the threshold
+	const liftUncertainty = learned !== null && !enough ? Math.max(measuringUncertainty, threshold - learned) : measuringUncertainty;
 
 	let channelLift: PairMeasure['channelLift'] = null;
 	let warmerMired: number | null = null;
@@ -284,6 +295,7 @@ export function measurePair(
 			liftIsLowerBound,
 			curveDoubt,
 			liftUnknownReason,
+			cellThreshold: threshold,
 			subjectCells: subject.length,
 			boxCells: boxCells.length,
 			blownShare: subject.length + blown > 0 ? blown / (subject.length + blown) : 0,
