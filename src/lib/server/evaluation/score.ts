@@ -95,7 +95,9 @@ export function score(outcomes: CaseOutcome[]): CriterionScore[] {
 			const e = r.evidence;
 			if (kind !== 'subject-clipping' && (e?.lowerBound || e?.upperBound || e?.ratioRange)) {
 				bounds++;
-				const [low, high] = e.ratioRange ?? [e.lowerBound ? m : null, e.upperBound ? m : null];
+				// a bound stated with an uncertainty ("at least 2 stops, ± 0.3") holds when the truth is within it
+				const slack = e.uncertainty ?? 0;
+				const [low, high] = e.ratioRange ?? [e.lowerBound && m !== null ? m - slack : null, e.upperBound && m !== null ? m + slack : null];
 				if (t.value !== null && ((low !== null && t.value < low) || (high !== null && t.value > high))) boundMisses++;
 			} else if (m !== null && t.value !== null && Number.isFinite(m)) {
 				errors.push(Math.abs(m - t.value));

@@ -53,10 +53,11 @@ export function gradeFlashShare(c: FlashShare, ctx: GradeContext): CriterionResu
 		`${more ? 'Give the flash more' : 'Give the flash less'} power (${change}), or move it ${more ? 'closer' : 'back'}; a change of shutter speed within sync moves only the ambient.`;
 
 	// most of the subject blown out: the lift is only a lower bound, which can prove too much flash but nothing else
+	// (the least ratio is the range's low end: the lift's least value less its uncertainty)
 	if (pair.liftIsLowerBound) {
-		const ratio = finite(Math.log2(2 ** lift - 1));
-		const evidence = { lift, flashShare: shareFromLift(lift), ratioStops: ratio ?? undefined, uncertainty: u, lowerBound: true };
-		const found = `The flash gave at least ${percent(shareFromLift(lift))} of the light on your subject${ratio === null ? '' : ` (flash ${ratioWords(ratio)})`}; ${asks}.`;
+		const ratio = finite(range.low);
+		const evidence = { lift: lift - u, flashShare: shareOfRatio(range.low), ratioStops: ratio ?? undefined, lowerBound: true };
+		const found = `The flash gave at least ${percent(shareOfRatio(range.low))} of the light on your subject${ratio === null ? '' : ` (flash ${range.low >= 0 ? 'at least' : 'at most'} ${ratioWords(ratio)})`}; ${asks}.`;
 		if (verdict === 'fail') return { ...base, verdict, measured: ratio, missing: [], evidence, message: `${found} ${advice(false, `at least ${formatStops(range.low - target)}`)}` };
 		return {
 			...base,
