@@ -35,6 +35,18 @@ describe('evaluation subset', () => {
 		}
 	});
 
+	it('states a flash:ambient ratio only where it is known within the goal, and a bound or range otherwise', () => {
+		const share = score(outcomes).find((s) => s.kind === 'flash-share')!;
+		expect(share.boundMisses).toBe(0);
+		for (const o of outcomes) {
+			const r = o.criteria.find((c) => c.kind === 'flash-share')!;
+			// a number, a bound or a range; with none, the result says there was no lift to read it from
+			if (typeof r.measured !== 'number' && !r.evidence?.ratioRange) expect(r.message, o.case.id).toMatch(/clipped|could not be measured|no part/i);
+			if (typeof r.measured !== 'number' || r.evidence?.lowerBound || r.evidence?.upperBound || o.truth.lift <= 0.05) continue;
+			expect(Math.abs(r.measured - Math.log2(2 ** o.truth.lift - 1)), o.case.id).toBeLessThanOrEqual(0.35);
+		}
+	});
+
 	it('says unknown, with its reason, where the reference is clipped on the subject', () => {
 		const clipped = outcomes.find((o) => o.case.id.startsWith('073'))!;
 		const lift = clipped.criteria.find((c) => c.kind === 'subject-lift')!;

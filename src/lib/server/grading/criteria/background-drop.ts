@@ -1,4 +1,8 @@
 // background-drop: the background's measured darkening from reference to lit frame must match the settings' EV change.
+// A pass needs the pair itself to rule out a drop a tolerance away from the settings under every picture style the
+// fit allows; where it cannot (see pair/comparametric.ts: a style and an exposure edit can trade exactly), the verdict
+// is unknown and a mentor compares the frames. Nothing outside the pixels (the files' Exif) is taken as proof of an
+// unedited frame: an editor can keep every tag.
 import { formatAmount, formatStops } from '../format';
 import { frameWords, isResult, lookupFrame, requireExif, requirePair, type CriterionResult, type GradeContext } from '../result';
 import { curveCanExplain, MIN_CURVE_SPAN, settingsDrop } from '../pair/index';
