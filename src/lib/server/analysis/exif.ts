@@ -21,6 +21,10 @@ export interface ExifReport {
 	dateTimeOriginal: string | null;
 	make: string | null;
 	model: string | null;
+	/** Software (TIFF 0x0131): a camera's firmware, or the program that last saved the file. Absent in older reports. */
+	software?: string | null;
+	/** DateTime (TIFF 0x0132), when the file was last saved, 'YYYY-MM-DDTHH:MM:SS'; a camera writes its DateTimeOriginal. Absent in older reports. */
+	modifyDate?: string | null;
 	/** TIFF/Exif Orientation 1–8 */
 	orientation: number | null;
 	/** Fields filled from a second-choice tag, e.g. { iso: 'RecommendedExposureIndex' }. */
@@ -56,7 +60,7 @@ export const EXIF_TAG_NAMES: Record<ExifField, string> = {
 };
 
 // SubfileType (NewSubfileType, 0x00FE), DNGVersion, SubIFD and PhotometricInterpretation tell raw from a TIFF
-const IFD0_TAGS = ['Make', 'Model', 'Orientation', 'SubIFD', 'SubfileType', 'DNGVersion', 'PhotometricInterpretation'];
+const IFD0_TAGS = ['Make', 'Model', 'Software', 'ModifyDate', 'Orientation', 'SubIFD', 'SubfileType', 'DNGVersion', 'PhotometricInterpretation'];
 const EXIF_TAGS = [
 	'ExposureTime',
 	'FNumber',
@@ -243,13 +247,19 @@ function readWhiteBalance(tags: ExifTags): ExifReport['whiteBalance'] {
 	return code === 0 ? 'auto' : code === 1 ? 'manual' : null;
 }
 
-function readDateTime(tags: ExifTags): string | null {
-	const raw = text(tags.DateTimeOriginal);
+/** An Exif date ('YYYY:MM:DD HH:MM:SS') as 'YYYY-MM-DDTHH:MM:SS'; null when absent or blank ('0000:00:00 …'). */
+function readDate(value: unknown): string | null {
+	const raw = text(value);
 	const match = raw && /^(\d{4}):(\d{2}):(\d{2})[ T](\d{2}):(\d{2}):(\d{2})/.exec(raw);
 	if (!match || match[1] === '0000' || match[2] === '00') return null;
 	const [, y, mo, d, h, mi, s] = match;
+	return `${y}-${mo}-${d}T${h}:${mi}:${s}`;
+}
+
+function readDateTime(tags: ExifTags): string | null {
+	const date = readDate(tags.DateTimeOriginal);
 	const offset = text(tags.OffsetTimeOriginal);
-	return `${y}-${mo}-${d}T${h}:${mi}:${s}${offset && /^[+-]\d{2}:\d{2}$/.test(offset) ? offset : ''}`;
+	return date && `${date}${offset && /^[+-]\d{2}:\d{2}$/.test(offset) ? offset : ''}`;
 }
 
 export function emptyExifReport(): ExifReport {
@@ -266,6 +276,8 @@ export function emptyExifReport(): ExifReport {
 		dateTimeOriginal: null,
 		make: null,
 		model: null,
+		software: null,
+		modifyDate: null,
 		orientation: null,
 		sources: {}
 	};
@@ -288,6 +300,8 @@ export function normaliseExif(tags: ExifTags | null): ExifReport {
 		dateTimeOriginal: readDateTime(tags),
 		make: text(tags.Make),
 		model: text(tags.Model),
+		software: text(tags.Software),
+		modifyDate: readDate(tags.ModifyDate),
 		orientation: orientation !== null && Number.isInteger(orientation) && orientation >= 1 && orientation <= 8 ? orientation : null,
 		sources
 	};

@@ -18,6 +18,9 @@ export interface TestExif {
 	make?: string;
 	model?: string;
 	dateTimeOriginal?: string;
+	/** Software and DateTime (the program that last saved the file, and when), as an editor writes them */
+	software?: string;
+	modifyDate?: string;
 	/** Adds GPS, an owner name and a body serial number, to check they never leak. */
 	personal?: boolean;
 }
@@ -89,6 +92,8 @@ export function buildExif(exif: TestExif): Exif {
 	};
 	put(ifd0, 'Make', exif.make);
 	put(ifd0, 'Model', exif.model);
+	put(ifd0, 'Software', exif.software);
+	put(ifd0, 'DateTime', exif.modifyDate);
 	put(ifd2, 'ExposureTime', exif.exposureTime, true);
 	put(ifd2, 'FNumber', exif.fNumber, true);
 	put(ifd2, 'ISOSpeedRatings', exif.iso);

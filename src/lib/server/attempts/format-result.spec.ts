@@ -77,6 +77,17 @@ describe('the evidence beside a criterion', () => {
 		expect(rows.map((r) => r.value)).toEqual(['at least 81 %', 'at least +2.4 stops over the ambient alone']);
 		expect(evidenceRows({})).toEqual([]);
 	});
+
+	it('says "at most" for an upper bound and gives a range when the ratio is known only within one', () => {
+		// flash 3 stops under the ambient: 1 / (1 + 2^3) = 11 % of the light (hand-worked)
+		const bound = evidenceRows({ evidence: { lift: 0.17, flashShare: 1 / 9, ratioStops: -3, upperBound: true } });
+		expect(bound.map((r) => r.value)).toEqual(['at most 11 % (flash 3 stops under the ambient)', 'at most +0.2 stops over the ambient alone']);
+		// from 0 to +2 stops: 1 / (1 + 1) = 50 % to 1 / (1 + 2^−2) = 80 % (hand-worked)
+		const range = evidenceRows({ evidence: { lift: 1.5, flashShare: 0.65, uncertainty: 0.6, ratioRange: [0, 2] } });
+		expect(range[0].value).toBe('50 % to 80 % (flash from 0 stops over the ambient to 2 stops over the ambient)');
+		const open = evidenceRows({ evidence: { lift: 0.2, flashShare: 0.13, uncertainty: 0.2, ratioRange: [null, -2] } });
+		expect(open[0].value).toBe('at most 20 % (flash at least 2 stops under the ambient)');
+	});
 });
 
 describe('the clipped areas of a frame', () => {

@@ -99,16 +99,27 @@ export function evidenceRows(r: Pick<CriterionResult, 'evidence'>): EvidenceRow[
 	const e = r.evidence;
 	if (!e) return [];
 	const rows: EvidenceRow[] = [];
-	const atLeast = e.lowerBound ? 'at least ' : '';
-	if (e.flashShare !== undefined) {
-		const ratio =
-			e.ratioStops === undefined
-				? ''
-				: ` (flash ${formatStops(Math.abs(e.ratioStops))} ${e.ratioStops >= 0 ? 'over' : 'under'} the ambient)`;
+	const atLeast = e.lowerBound ? 'at least ' : e.upperBound ? 'at most ' : '';
+	const ratioWords = (r: number) => `${formatStops(Math.abs(r))} ${r >= 0 ? 'over' : 'under'} the ambient`;
+	const shareOf = (r: number) => `${Math.round(100 / (1 + 2 ** -r))} %`;
+	if (e.ratioRange) {
+		// the ratio known only within a range: its ends, an open low end meaning "no flash" cannot be ruled out
+		const [low, high] = e.ratioRange;
+		const value =
+			low === null
+				? high === null
+					? 'not measurable'
+					: `at most ${shareOf(high)} (flash ${high >= 0 ? 'at most' : 'at least'} ${ratioWords(high)})`
+				: high === null
+					? `at least ${shareOf(low)} (flash ${low >= 0 ? 'at least' : 'at most'} ${ratioWords(low)})`
+					: `${shareOf(low)} to ${shareOf(high)} (flash from ${ratioWords(low)} to ${ratioWords(high)})`;
+		rows.push({ key: 'share', label: 'Flash’s share of the light on the subject', value });
+	} else if (e.flashShare !== undefined) {
+		const ratio = e.ratioStops === undefined ? '' : ` (flash ${ratioWords(e.ratioStops)})`;
 		rows.push({ key: 'share', label: 'Flash’s share of the light on the subject', value: `${atLeast}${Math.round(100 * e.flashShare)} %${ratio}` });
 	}
 	if (e.lift !== undefined) {
-		const doubt = e.uncertainty !== undefined && !e.lowerBound ? ` (± ${formatStops(e.uncertainty)})` : '';
+		const doubt = e.uncertainty !== undefined && !e.lowerBound && !e.upperBound ? ` (± ${formatStops(e.uncertainty)})` : '';
 		rows.push({ key: 'measured', label: 'Subject level, measured', value: `${atLeast}${formatStops(e.lift, { signed: true })} over the ambient alone${doubt}` });
 	}
 	if (e.predictedLift !== undefined) {

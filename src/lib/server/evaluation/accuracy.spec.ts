@@ -6,8 +6,8 @@ import { makeCases } from './cases';
 import { runCase, score, type CaseOutcome } from './score';
 
 // one of each trouble: plain and camera-like curves, light and dark subjects, no flash, an edited frame, a clipped
-// sky, a gel with the white balance changed between frames, a subject blown out by the flash
-const PICKED = ['000', '007', '022', '052', '073', '091', '127'];
+// sky, a gel with the white balance changed between frames, a weak flash, a subject blown out by the flash
+const PICKED = ['000', '007', '022', '052', '072', '073', '091', '127'];
 const CASES = makeCases(128).filter((c) => PICKED.includes(c.id.slice(0, 3)));
 
 describe('evaluation subset', () => {
@@ -35,6 +35,18 @@ describe('evaluation subset', () => {
 		}
 	});
 
+	it('states a flash:ambient ratio only where it is known within the goal, and a bound or range otherwise', () => {
+		const share = score(outcomes).find((s) => s.kind === 'flash-share')!;
+		expect(share.boundMisses).toBe(0);
+		for (const o of outcomes) {
+			const r = o.criteria.find((c) => c.kind === 'flash-share')!;
+			// a number, a bound or a range; with none, the result says there was no lift to read it from
+			if (typeof r.measured !== 'number' && !r.evidence?.ratioRange) expect(r.message, o.case.id).toMatch(/clipped|could not be measured|no part/i);
+			if (typeof r.measured !== 'number' || r.evidence?.lowerBound || r.evidence?.upperBound || o.truth.lift <= 0.05) continue;
+			expect(Math.abs(r.measured - Math.log2(2 ** o.truth.lift - 1)), o.case.id).toBeLessThanOrEqual(0.35);
+		}
+	});
+
 	it('says unknown, with its reason, where the reference is clipped on the subject', () => {
 		const clipped = outcomes.find((o) => o.case.id.startsWith('073'))!;
 		const lift = clipped.criteria.find((c) => c.kind === 'subject-lift')!;
@@ -50,6 +62,16 @@ describe('evaluation subset', () => {
 		expect(share.verdict).toBe('unknown');
 		expect(share.message).toMatch(/cannot tell a picture style from an edited frame/);
 		expect(edited.criteria.find((c) => c.kind === 'background-drop')!.verdict).not.toBe('pass');
+	});
+
+	it('states only an upper bound for a weak flash’s share, one that holds the true ratio, and fails it', () => {
+		const weak = outcomes.find((o) => o.case.id.startsWith('072'))!;
+		expect(weak.truth.lift).toBeLessThan(0.3);
+		const share = weak.criteria.find((c) => c.kind === 'flash-share')!;
+		expect(share.verdict).toBe('fail');
+		expect(share.evidence?.upperBound).toBe(true);
+		expect(share.measured as number).toBeGreaterThanOrEqual(Math.log2(2 ** weak.truth.lift - 1));
+		expect(score(outcomes).every((s) => s.boundMisses === 0)).toBe(true);
 	});
 
 	it('passes a blown-out subject on its lower bound but does not claim to know the balance', () => {

@@ -51,8 +51,10 @@ export interface CriterionScore {
 	measuredCount: number;
 	/** 95th percentile of |measured − true| over the results that passed or failed (the ones no mentor checks). */
 	p95Decided: number;
-	/** Results whose measure was only a bound (a blown-out subject): not counted in the errors. */
+	/** Results whose measure was only a bound or a range (a blown-out subject, a weak flash): not counted in the errors. */
 	bounds: number;
+	/** Of those, the ones the truth lies outside of (a bound that is wrong). */
+	boundMisses: number;
 	falsePasses: number;
 	falseFails: number;
 	unknowns: number;
@@ -71,6 +73,7 @@ export function score(outcomes: CaseOutcome[]): CriterionScore[] {
 		const errors: number[] = [];
 		const decided: number[] = [];
 		let bounds = 0;
+		let boundMisses = 0;
 		let falsePasses = 0;
 		let falseFails = 0;
 		let unknowns = 0;
@@ -89,8 +92,14 @@ export function score(outcomes: CaseOutcome[]): CriterionScore[] {
 				wrong.push(`${o.case.id} (false fail)`);
 			}
 			const m = kind === 'subject-clipping' ? (r.evidence?.blownPercent ?? null) : typeof r.measured === 'number' ? r.measured : null;
-			if (r.evidence?.lowerBound && kind !== 'subject-clipping') bounds++;
-			else if (m !== null && t.value !== null && Number.isFinite(m)) {
+			const e = r.evidence;
+			if (kind !== 'subject-clipping' && (e?.lowerBound || e?.upperBound || e?.ratioRange)) {
+				bounds++;
+				// a bound stated with an uncertainty ("at least 2 stops, ± 0.3") holds when the truth is within it
+				const slack = e.uncertainty ?? 0;
+				const [low, high] = e.ratioRange ?? [e.lowerBound && m !== null ? m - slack : null, e.upperBound && m !== null ? m + slack : null];
+				if (t.value !== null && ((low !== null && t.value < low) || (high !== null && t.value > high))) boundMisses++;
+			} else if (m !== null && t.value !== null && Number.isFinite(m)) {
 				errors.push(Math.abs(m - t.value));
 				if (r.verdict !== 'unknown') decided.push(Math.abs(m - t.value));
 			}
@@ -104,6 +113,7 @@ export function score(outcomes: CaseOutcome[]): CriterionScore[] {
 			measuredCount: errors.length,
 			p95Decided: quantile(decided, 0.95),
 			bounds,
+			boundMisses,
 			falsePasses,
 			falseFails,
 			unknowns,
@@ -121,7 +131,7 @@ export function formatScores(scores: CriterionScore[]): string[] {
 		s.medianError.toFixed(2),
 		s.p95Error.toFixed(2),
 		Number.isFinite(s.p95Decided) ? s.p95Decided.toFixed(2) : '–',
-		String(s.bounds),
+		s.boundMisses ? `${s.bounds} (${s.boundMisses} missed)` : String(s.bounds),
 		String(s.falsePasses),
 		`${s.falseFails} (${((100 * s.falseFails) / s.n).toFixed(1)} %)`,
 		String(s.unknowns)

@@ -25,6 +25,10 @@ export interface Evidence {
 	blownPercent?: number;
 	/** true when the lift is only a lower bound (most of the flash-lit subject is blown out). */
 	lowerBound?: boolean;
+	/** true when the measure (and lift, share, ratio here) is only an upper bound: the pair cannot narrow it further. */
+	upperBound?: boolean;
+	/** Flash over ambient, stops, known only within this range (null: open end); given instead of a measured ratio when the range is wider than the criterion's tolerance. */
+	ratioRange?: [number | null, number | null];
 }
 
 export interface CriterionResult {

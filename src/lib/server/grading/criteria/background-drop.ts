@@ -1,8 +1,13 @@
 // background-drop: the background's measured darkening from reference to lit frame must match the settings' EV change.
+// A pass needs the pair itself to rule out a drop a tolerance away from the settings under every picture style the
+// fit allows; where it cannot (see pair/comparametric.ts: a style and an exposure edit can trade exactly), the verdict
+// is unknown and a mentor compares the frames, with what the files' Exif says about their provenance beside it
+// (provenance.ts); that is never taken as proof of an unedited frame: an editor can keep every tag.
 import { formatAmount, formatStops } from '../format';
 import { frameWords, isResult, lookupFrame, requireExif, requirePair, type CriterionResult, type GradeContext } from '../result';
 import { curveCanExplain, MIN_CURVE_SPAN, settingsDrop } from '../pair/index';
 import { resolveFrames, type Criterion } from '../spec';
+import { provenanceNote } from './provenance';
 
 type BackgroundDrop = Extract<Criterion, { kind: 'background-drop' }>;
 
@@ -63,7 +68,8 @@ export function gradeBackgroundDrop(c: BackgroundDrop, ctx: GradeContext): Crite
 	const plainOff = Math.abs(plain - expected);
 	const styleWords = fit && Math.abs(plain - fit.drop) >= 0.1 ? ` (${formatStops(plain)} read as plain sRGB: the camera’s picture style ${plain > fit.drop ? 'stretches' : 'squeezes'} the change)` : '';
 	const found = `The background got ${formatStops(measured)} ${measured >= 0 ? 'darker' : 'brighter'} from ${frameWords(refName)} to ${frameWords(litName)}${styleWords}; its camera settings account for ${formatStops(expected)} ${expected >= 0 ? 'darker' : 'brighter'}.`;
-	const unknown = (why: string): CriterionResult => ({ ...withTarget, verdict: 'unknown', measured, missing: [], message: `${found} ${why}` });
+	const provenance = provenanceNote(ref, lit, refName, litName);
+	const unknown = (why: string): CriterionResult => ({ ...withTarget, verdict: 'unknown', measured, missing: [], message: `${found} ${why}${provenance}` });
 	if (pair.backgroundSpread > MAX_SPREAD) {
 		return unknown('Parts of the background changed by very different amounts (the scene or the framing moved between frames, or the flash reached the background), so a mentor will compare the frames by eye.');
 	}
@@ -89,6 +95,6 @@ export function gradeBackgroundDrop(c: BackgroundDrop, ctx: GradeContext): Crite
 		verdict: 'fail',
 		measured,
 		missing: [],
-		message: `${found} These should agree within ${formatAmount(c.tolerance)} stop. Upload both frames straight from the camera (not edited), of the same scene a moment apart, and keep the flash off the background.`
+		message: `${found} These should agree within ${formatAmount(c.tolerance)} stop. Upload both frames straight from the camera (not edited), of the same scene a moment apart, and keep the flash off the background.${provenance}`
 	};
 }

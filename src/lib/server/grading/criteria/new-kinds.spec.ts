@@ -4,7 +4,7 @@ import { readFrame, type Frame } from '../../analysis/index';
 import { makeFrame, REFERENCE_EXIF, type TestExif, type TestFrameSpec } from '../../analysis/test-frames';
 import { grade } from '../grade';
 import { validateSpec, type AssignmentSpecInput } from '../spec';
-import { targetRatio } from './flash-share';
+import { judgeRange, targetRatio } from './flash-share';
 
 const FLASH_FIRED = 0x19; // CIPA DC-008: fired, auto mode
 
@@ -67,6 +67,31 @@ describe('flash-share', () => {
 		const single = grade({ frames: ['lit'], criteria: [{ kind: 'flash-share', share: 0.75 }] }, { lit });
 		expect(single.criteria[0].verdict).toBe('unknown');
 		expect(single.criteria[0].message).toMatch(/reference frame/);
+	});
+});
+
+describe('flash-share with a weak flash', () => {
+	it('states only the most the flash can have given when the ratio is too steep to measure, and fails it', async () => {
+		const ref = await frame({ ...REFERENCE_EXIF }, { subject: { stops: 0 }, background: { stops: 0.5 } });
+		// ambient 2 stops down; the flash adds an eighth of the ambient on the subject: a lift of log2(1 + 1/8) = 0.17
+		// stop, a ratio of −3 stops (hand-worked), which a tenth of a stop of lift error would move by most of a stop
+		const lit = await frame({ ...REFERENCE_EXIF, exposureTime: 1 / 2000, flash: FLASH_FIRED }, { subject: { stops: -2 + Math.log2(1.125) }, background: { stops: -1.5 } });
+		const r = grade({ frames: ['reference', 'lit'], criteria: [{ kind: 'flash-share', share: 0.75, tolerance: 0.5 }] }, { reference: ref, lit }).criteria[0];
+		expect(r.verdict).toBe('fail');
+		expect(r.evidence?.upperBound).toBe(true);
+		// the bound holds the true ratio and lies below the asked window, log2(3) − ½ (hand-worked)
+		expect(r.measured as number).toBeGreaterThanOrEqual(-3);
+		expect(r.measured as number).toBeLessThan(Math.log2(3) - 0.5);
+		expect(r.message).toMatch(/at most \d+ % of the light/);
+	});
+
+	it('judges a range against the window: inside passes, outside fails, across is for a mentor', () => {
+		const window = { low: 1, high: 2 };
+		expect(judgeRange(1.2, 1.8, window)).toBe('pass');
+		expect(judgeRange(-Infinity, 0.5, window)).toBe('fail');
+		expect(judgeRange(2.1, Infinity, window)).toBe('fail');
+		expect(judgeRange(0.5, 1.5, window)).toBe('unknown');
+		expect(judgeRange(-Infinity, Infinity, window)).toBe('unknown');
 	});
 });
 

@@ -10,6 +10,17 @@
 // Limits: a curve outside the family, or a background spanning few levels, leaves D and the curve entangled (a flat
 // style with a large drop looks like plain sRGB with a smaller one); the fit then only narrows D, and the caller
 // weighs it against the plain sRGB reading before deciding anything. Green is used: white balance keeps it fixed.
+// What no pair can tell, whatever the fitting: the frames only ever show C(q) and C(q·2^−D), and for any γ > 0 the
+// curve C'(q) = C(q^γ) with the drop D' = D/γ gives exactly the same two frames (C'(q·2^−D') = C(q^γ·2^−D)), over
+// every level, clipping and black point alike (Mann 2000: the comparametric function fixes the curve only up to such
+// an exponent, unless the exposure ratio is known). A flatter or more contrasty picture style is largely such an
+// exponent, so a background that drops D under one style looks exactly like one that drops D/γ under another: only
+// the family's shape (how far a style can bend before it stops looking like one) separates them, and on the
+// evaluation set that is not enough to rule out half a stop for about half of the unedited pairs (plain sRGB ones
+// included). An edit of the lit frame's exposure, or an ambient change between frames, is such a D. No other
+// statistic of the same two frames (more cells, other channels, the subject's unlit parts) can undo it; only what
+// the pixels do not hold can (a known curve, a third frame of known exposure, or trust in the files' provenance).
+// (our reasoning from the identity above)
 import { srgbDecode, srgbEncode } from '../../../exposure/index';
 
 export interface DropFit {

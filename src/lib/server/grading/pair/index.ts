@@ -47,6 +47,31 @@ export function ratioFromLift(lift: number): number {
 	return lift <= 0 ? -Infinity : Math.log2(2 ** lift - 1);
 }
 
+/** The range of flash:ambient ratios (stops) a lift allows: −Infinity is "no flash", +Infinity "no upper limit". */
+export interface RatioRange {
+	low: number;
+	high: number;
+}
+
+/**
+ * The flash:ambient ratio's range from the lift ± its uncertainty, through ratioFromLift (the ratio is steep where the
+ * lift is small: a tenth of a stop of lift is a stop of ratio at a quarter-stop lift). A lift within its uncertainty of
+ * the cell threshold rests on the cells above it, so the low end opens ("no flash" cannot be ruled out from the ratio);
+ * a lift that is only a lower bound leaves the high end open. `uncertainty` is the lift's (by default all of it). null
+ * without a lift.
+ */
+export function ratioRange(
+	pair: Pick<PairMeasure, 'lift' | 'liftUncertainty' | 'liftIsLowerBound' | 'cellThreshold'>,
+	uncertainty = pair.liftUncertainty
+): RatioRange | null {
+	if (pair.lift === null) return null;
+	const lowLift = pair.lift - uncertainty;
+	return {
+		low: lowLift <= pair.cellThreshold ? -Infinity : ratioFromLift(lowLift),
+		high: pair.liftIsLowerBound ? Infinity : ratioFromLift(pair.lift + uncertainty)
+	};
+}
+
 /** The flash's share of the subject's light, 0–1, from the lift: 1 − 2^−lift. */
 export function shareFromLift(lift: number): number {
 	return lift <= 0 ? 0 : 1 - 2 ** -lift;

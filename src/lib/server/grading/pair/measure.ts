@@ -50,6 +50,11 @@ export interface PairMeasure {
 	curveDoubt: number;
 	/** Why no lift could be measured although the box holds a subject (it is clipped in the reference); null otherwise. */
 	liftUnknownReason: string | null;
+	/**
+	 * Least lift a cell needs to count as flash-lit (stops). A lift measured within its uncertainty of this rests on the
+	 * cells the threshold let through, the top of the subject's spread, so the subject's own lift may be lower.
+	 */
+	cellThreshold: number;
 	/** Cells judged to be the flash-lit subject (and of the box, usable). */
 	subjectCells: number;
 	boxCells: number;
@@ -195,15 +200,19 @@ export function measurePair(
 	// at least one channel of a blown cell reached the clipping level, so its lift is at least the least lift that
 	// takes one of its channels there (a white-balance gain or a gel clips one channel long before the others)
 	const channels = (['r', 'g', 'b'] as const).map((c) => measureChannel(ref, lit, background, d, c, luma.calibration));
-	const blownLifts = blownCells
-		.map((i) => {
-			const needs = channels.map((c, k) => {
-				const a = level(ref, i, (['r', 'g', 'b'] as const)[k]);
-				return c && a >= MIN_LEVEL ? luma.calibration.sceneStops(c.calibration.predictLit(a), CLIP_LEVEL) : NaN;
-			});
-			return needs.every(Number.isFinite) ? Math.min(...needs) : NaN;
-		})
-		.filter((l) => Number.isFinite(l) && l >= threshold);
+	// each blown cell's least lift through the learned curve, and read as plain sRGB (the edited-frame reading)
+	const leastLifts = blownCells.map((i) => {
+		const needs = channels.map((c, k) => {
+			const a = level(ref, i, (['r', 'g', 'b'] as const)[k]);
+			if (!c || !(a >= MIN_LEVEL)) return { learned: NaN, plain: NaN };
+			const from = c.calibration.predictLit(a);
+			return { learned: luma.calibration.sceneStops(from, CLIP_LEVEL), plain: CLIP_LEVEL - from };
+		});
+		const ok = needs.every((n) => Number.isFinite(n.learned));
+		return { learned: ok ? Math.min(...needs.map((n) => n.learned)) : NaN, plain: ok ? Math.min(...needs.map((n) => n.plain)) : NaN };
+	});
+	const usableBlown = leastLifts.filter((l) => Number.isFinite(l.learned) && l.learned >= threshold);
+	const blownLifts = usableBlown.map((l) => l.learned);
 	const blown = blownCells.length;
 	const enough = lit_.length + blownLifts.length >= Math.max(2, 0.05 * (measured.length + blownLifts.length));
 	const subject = enough ? lit_ : [];
@@ -226,15 +235,18 @@ export function measurePair(
 			: null;
 	const liftIsLowerBound = enough && blownLifts.length >= subject.length;
 	const pick = (values: number[]) => quantile(values, LIFT_QUANTILE);
+	// most of the subject blown: each blown cell's value is only its least lift, and the median of per-cell least values
+	// is a least value of the subject's median (an upper quantile of them is not)
+	const pickBound = (values: number[]) => (liftIsLowerBound ? median(values) : pick(values));
 	const learned =
 		liftUnknownReason !== null || measured.length + blownLifts.length === 0
 			? null
 			: enough
-				? pick([...subject.map((c) => c.lift), ...blownLifts])
+				? pickBound([...subject.map((c) => c.lift), ...blownLifts])
 				: Math.max(0, quantile(measured.map((c) => c.lift), 0.75));
 	// the same cells read as plain sRGB: where the background's drop differs from the settings, the pair cannot tell a
 	// camera curve (the learned reading) from an edited frame (this reading), so the lift is only known between them
-	const plain = enough && subject.length ? pick(subject.map((c) => luma.plainLift(c.i))) : learned;
+	const plain = enough && subject.length + usableBlown.length ? pickBound([...subject.map((c) => luma.plainLift(c.i)), ...usableBlown.map((l) => l.plain)]) : learned;
 	const sceneDrop = fitSceneDrop(greenRef, greenLit, d);
 	// when the background cannot rule out an ambient change half a stop off the settings (an edited frame under a
 	// flat or contrasty style), the curve learned from it may be off by that much too: the lift with it
@@ -244,18 +256,23 @@ export function measurePair(
 		sceneDrop.levelSpan >= MIN_CURVE_SPAN &&
 		Math.min(sceneDrop.misfitAt(d - LOOSE_DROP), sceneDrop.misfitAt(d + LOOSE_DROP)) < DROP_PINNED;
 	const looseDoubt = dropLoose && learned !== null ? (Math.abs(learned) * LOOSE_DROP) / Math.max(Math.abs(d as number), 1) : 0;
+	// (a lower bound read through the wrong curve is no bound, so it carries the same doubt)
 	const curveDoubt =
-		learned !== null && !liftIsLowerBound
+		learned !== null
 			? Math.max(plain !== null && luma.calibration.slopeLearned ? Math.abs(learned - plain) : 0, looseDoubt)
 			: 0;
 	// a background drop no camera curve explains is an edited (or mis-tagged) frame: read the lift as plain sRGB then
 	const edited = d !== null && luma.calibration.slopeLearned && !curveCanExplain(luma.calibration.medianDrop, d);
 	const lift: number | null = edited && curveDoubt > 0 ? plain : learned;
-	const liftUncertainty =
+	const measuringUncertainty =
 		BASE_UNCERTAINTY +
 		(2 * (Number.isFinite(noise) ? noise : 0.2)) / Math.sqrt(Math.max(1, subject.length || measured.length)) +
 		slopeDoubt * Math.abs(learned ?? 0) +
 		curveDoubt;
+	// too few cells above the threshold to stand for the subject: its lift is below the threshold on nearly all of it,
+	// whatever the upper quartile read, so the stated range reaches up to the threshold
+	// (the threshold is itself a measured level, good to the least measuring uncertainty)
+	const liftUncertainty = learned !== null && !enough ? Math.max(measuringUncertainty, threshold + BASE_UNCERTAINTY - learned) : measuringUncertainty;
 
 	let channelLift: PairMeasure['channelLift'] = null;
 	let warmerMired: number | null = null;
@@ -284,6 +301,7 @@ export function measurePair(
 			liftIsLowerBound,
 			curveDoubt,
 			liftUnknownReason,
+			cellThreshold: threshold,
 			subjectCells: subject.length,
 			boxCells: boxCells.length,
 			blownShare: subject.length + blown > 0 ? blown / (subject.length + blown) : 0,
