@@ -5,13 +5,25 @@ import { createHash } from 'node:crypto';
 import { readdir, readFile, rm, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 
-const xmlEscape = (s) => String(s).replace(/[<>&'"]/g, (c) => ({ '<': '&lt;', '>': '&gt;', '&': '&amp;', "'": '&apos;', '"': '&quot;' })[c]);
+/** @type {Record<string, string>} */
+const ENTITIES = { '<': '&lt;', '>': '&gt;', '&': '&amp;', "'": '&apos;', '"': '&quot;' };
+/** @param {string | number} s */
+const xmlEscape = (s) => String(s).replace(/[<>&'"]/g, (c) => ENTITIES[c] ?? c);
 
+/**
+ * @typedef {{ store: { getResourcePath(bucket: string, key: undefined, resource: string): string }; middleware: unknown[] }} S3rverInside
+ * @typedef {{ query: Record<string, unknown>; method: string; path: string; status: number; type: string; body: unknown }} Context
+ */
+
+/** @param {string} code @param {string} message */
 function errorXml(code, message) {
 	return `<?xml version="1.0" encoding="UTF-8"?>\n<Error><Code>${code}</Code><Message>${xmlEscape(message)}</Message></Error>`;
 }
 
-/** The upload's folder in s3rver's own layout, or null when no such upload is in progress (completed or aborted). */
+/**
+ * The upload's folder in s3rver's own layout, or null when no such upload is in progress (completed or aborted).
+ * @param {S3rverInside} server @param {string} bucket @param {string} uploadId
+ */
 async function uploadFolder(server, bucket, uploadId) {
 	if (!/^[a-f0-9]{32}$/.test(uploadId)) return null;
 	const folder = join(server.store.getResourcePath(bucket, undefined, 'uploads'), uploadId);
@@ -19,6 +31,7 @@ async function uploadFolder(server, bucket, uploadId) {
 	return found?.isDirectory() ? folder : null;
 }
 
+/** @param {string} folder */
 async function listParts(folder) {
 	const names = (await readdir(folder)).filter((n) => /^\d+$/.test(n));
 	const parts = [];
@@ -30,8 +43,15 @@ async function listParts(folder) {
 	return parts.sort((a, b) => a.number - b.number);
 }
 
-/** Adds ListParts and AbortMultipartUpload to an S3rver (a Koa app), ahead of its own routes. */
-export function addMultipartCalls(server) {
+/**
+ * Adds ListParts and AbortMultipartUpload to an S3rver (a Koa app), ahead of its own routes; call before `run()`.
+ * @template T
+ * @param {T} s3rver
+ * @returns {T}
+ */
+export function addMultipartCalls(s3rver) {
+	const server = /** @type {S3rverInside} */ (/** @type {unknown} */ (s3rver));
+	/** @param {Context} ctx @param {() => Promise<void>} next */
 	const handler = async (ctx, next) => {
 		const uploadId = ctx.query.uploadId;
 		const method = ctx.method;
@@ -65,5 +85,5 @@ export function addMultipartCalls(server) {
 	};
 	// before the router (the last middleware), after logging and the response encoding
 	server.middleware.splice(server.middleware.length - 1, 0, handler);
-	return server;
+	return s3rver;
 }

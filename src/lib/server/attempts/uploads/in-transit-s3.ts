@@ -39,11 +39,22 @@ function isMissing(error: unknown): boolean {
 	return e?.name === 'NoSuchKey' || e?.name === 'NotFound' || e?.name === 'NoSuchUpload' || e?.$metadata?.httpStatusCode === 404 || e?.status_code === 404;
 }
 
+/** @tus/s3-store that also removes a cut part's bytes (`<id>.part`) when an upload is removed, by tus (cancel) or by us. */
+class S3UploadStore extends S3Store {
+	override async remove(id: string): Promise<void> {
+		try {
+			await super.remove(id);
+		} finally {
+			await this.deleteIncompletePart(id);
+		}
+	}
+}
+
 export function createS3Uploads(options: S3StoreOptions): UploadsInTransit {
 	const config = s3ClientConfig(options);
 	const Bucket = options.bucket;
 	const client = new S3Client(config);
-	const datastore = new S3Store({
+	const datastore = new S3UploadStore({
 		// one S3 part per part the browser sends (8 MiB), within S3's 5 MiB minimum
 		partSize: UPLOAD_PART_BYTES,
 		expirationPeriodInMilliseconds: UPLOAD_TTL_MS,
@@ -53,6 +64,7 @@ export function createS3Uploads(options: S3StoreOptions): UploadsInTransit {
 		s3ClientConfig: { ...config, bucket: Bucket }
 	});
 
+	/** Every key an upload may have left, whether or not its description is still there. */
 	async function deleteKeys(id: string) {
 		const Objects = ['', '.info', '.part'].map((suffix) => ({ Key: `${id}${suffix}` }));
 		await client.send(new DeleteObjectsCommand({ Bucket, Delete: { Objects, Quiet: true } }));
@@ -91,11 +103,14 @@ export function createS3Uploads(options: S3StoreOptions): UploadsInTransit {
 		},
 		async remove(id) {
 			checkedId(id);
-			// aborts the multipart upload (its parts) and removes the object and description; then the cut part's bytes
-			await datastore.remove(id).catch((error: unknown) => {
+			// aborts the multipart upload (its parts), removes the object, its description and a cut part's bytes
+			try {
+				await datastore.remove(id);
+			} catch (error) {
+				// no description (never written, or already removed): remove whatever else is left by its keys
 				if (!isMissing(error)) throw error;
-			});
-			await deleteKeys(id);
+				await deleteKeys(id);
+			}
 		},
 		async held() {
 			const latest = new Map<string, Date>();
