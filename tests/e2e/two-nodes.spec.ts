@@ -37,17 +37,23 @@ test.afterAll(async () => {
 	await cluster?.stop();
 });
 
-/** Signs in through one node's sign-in form; the answer's status, and the session cookie when it worked. */
-async function signIn(node: string, email: string, password: string): Promise<{ status: number; cookie: string | null }> {
-	const answer = await fetch(`${node}/signin`, {
+/**
+ * Sends a form action to one node as a script would (SvelteKit then answers in JSON: `{ type, status }`); the action's
+ * status (303 for its redirect, 400 or 429 for a failure), and the session cookie when one was set.
+ */
+async function formAction(node: string, path: string, form: Record<string, string>, cookie?: string): Promise<{ status: number; cookie: string | null }> {
+	const answer = await fetch(`${node}${path}`, {
 		method: 'POST',
-		headers: { origin: cluster.origin, 'content-type': 'application/x-www-form-urlencoded' },
-		body: new URLSearchParams({ email, password }),
+		headers: { origin: cluster.origin, 'content-type': 'application/x-www-form-urlencoded', ...(cookie ? { cookie } : {}) },
+		body: new URLSearchParams(form),
 		redirect: 'manual'
 	});
-	const cookie = answer.headers.getSetCookie().find((c) => !/max-age=0/i.test(c))?.split(';')[0] ?? null;
-	return { status: answer.status, cookie };
+	const body = (await answer.json()) as { status?: number };
+	const set = answer.headers.getSetCookie().find((c) => !/max-age=0/i.test(c))?.split(';')[0] ?? null;
+	return { status: body.status ?? answer.status, cookie: set };
 }
+
+const signIn = (node: string, email: string, password: string) => formAction(node, '/signin', { email, password });
 
 async function signedIn(node: string, role: 'learner' | 'mentor'): Promise<TusSender> {
 	const { email, password } = demoAccount(role);
@@ -133,20 +139,19 @@ test('a session started on one node works on the other, and signing out on eithe
 	expect(me.status).toBe(200);
 	expect((await me.json()).email).toBe(demoAccount('learner').email);
 
-	const out = await fetch(`${b}/signout`, { method: 'POST', headers: { cookie: learner.cookie, origin: cluster.origin }, redirect: 'manual' });
-	expect(out.status).toBe(303);
+	expect((await formAction(b, '/signout', {}, learner.cookie)).status).toBe(303);
 	expect((await get(a, '/api/v1/me', learner)).status).toBe(401);
 	expect((await get(b, '/api/v1/me', learner)).status).toBe(401);
 });
 
-test('sign-in failures are counted across both nodes: the sixth wrong password is throttled on either', async () => {
+test('sign-in failures are counted across both nodes: after the sixth wrong password the account waits on either', async () => {
 	const [a, b] = cluster.nodes;
 	const { email } = demoAccount('author');
-	// five free tries for an account (throttleRules.account), spread over both nodes
-	for (const node of [a, b, a, b, a]) expect((await signIn(node, email, 'not-the-password')).status).toBe(400);
-	expect((await signIn(b, email, 'not-the-password')).status).toBe(429);
-	// now locked on both nodes, even with the right password
-	expect((await signIn(a, email, demoAccount('author').password)).status).toBe(429);
+	// five free tries for an account (throttleRules.account), and the sixth failure sets the wait: spread over both nodes
+	for (const node of [a, b, a, b, a, b]) expect((await signIn(node, email, 'not-the-password')).status).toBe(400);
+	// now it waits on both nodes, even with the right password
+	expect((await signIn(a, email, 'not-the-password')).status).toBe(429);
+	expect((await signIn(b, email, demoAccount('author').password)).status).toBe(429);
 });
 
 test('the mentor’s review queue pages through the same attempts whichever node answers each page', async () => {
