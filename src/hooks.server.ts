@@ -6,6 +6,7 @@ import { client } from '$lib/server/db';
 import { readSession } from '$lib/server/auth';
 import { closeQueue } from '$lib/server/attempts/queue';
 import { closeUploadLocker } from '$lib/server/attempts/uploads/pg-locker';
+import { sweepTemporaryFiles } from '$lib/server/attempts/uploads/sweep';
 import { startInlineWorker } from '$lib/server/attempts/worker';
 import { readCatalogue } from '$lib/server/lessons/catalogue';
 import { closeCompilePool } from '$lib/server/lessons/compile-pool';
@@ -22,6 +23,8 @@ export const init: ServerInit = async () => {
 	// the course files are checked once at start-up: a broken one stops the app, naming the file
 	await readCatalogue();
 	void startInlineWorker();
+	// what a crash of this node left in its own upload folder (the workers' hourly sweep may run on other machines)
+	void sweepTemporaryFiles().catch((error: unknown) => console.error('[uploads] temporary files not swept', error instanceof Error ? error.message : error));
 };
 
 /** On every response (pages get their Content-Security-Policy from `kit.csp` in svelte.config.js). */

@@ -3,7 +3,7 @@
 // through a temporary file, and nothing of the uploads stays in the bucket afterwards (made, cancelled or swept). The
 // bucket is an s3rver (with the fake's multipart additions) this file starts on a free port.
 import { existsSync } from 'node:fs';
-import { mkdtemp, readdir, rm } from 'node:fs/promises';
+import { mkdir, mkdtemp, readdir, rm, utimes, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ListObjectsCommand, S3Client } from '@aws-sdk/client-s3';
@@ -17,7 +17,7 @@ import { uploadDir } from '$lib/server/attempts/uploads/folder';
 import { useUploadsInTransit, type UploadsInTransit } from '$lib/server/attempts/uploads/in-transit';
 import { createS3Uploads } from '$lib/server/attempts/uploads/in-transit-s3';
 import { padJpeg } from '$lib/server/attempts/uploads/padded-jpeg';
-import { sweepUploads } from '$lib/server/attempts/uploads/sweep';
+import { sweepTemporaryFiles, sweepUploads } from '$lib/server/attempts/uploads/sweep';
 import { createS3Store, s3ClientConfig, type S3StoreOptions } from '$lib/server/storage/s3';
 import { useFileStore, type FileStore } from '$lib/server/storage';
 import { UPLOAD_PART_BYTES } from '$lib/attempts/upload-parts';
@@ -148,5 +148,19 @@ describe('frames in transit in the bucket', () => {
 		expect(await keysOf(stray)).toEqual([]);
 		expect(await keysOf(owned)).toEqual([`${owned}.info`]);
 		expect(existsSync(join(uploadDir(), owned))).toBe(false);
+	});
+
+	test('a copy left on this node by a crash is swept once old (at app start and by the sweep); a fresh one is kept', async () => {
+		await mkdir(uploadDir(), { recursive: true });
+		const old = join(uploadDir(), `copy-${'cd'.repeat(16)}-crashed`);
+		const fresh = join(uploadDir(), `copy-${'ef'.repeat(16)}-reading`);
+		await writeFile(old, 'bytes');
+		await writeFile(fresh, 'bytes');
+		const hoursAgo = new Date(Date.now() - 2 * 3600_000);
+		await utimes(old, hoursAgo, hoursAgo);
+		expect(await sweepTemporaryFiles()).toBeGreaterThanOrEqual(1);
+		expect(existsSync(old)).toBe(false);
+		expect(existsSync(fresh)).toBe(true);
+		await rm(fresh);
 	});
 });

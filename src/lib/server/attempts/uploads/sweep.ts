@@ -63,8 +63,17 @@ async function sweepStrayUploadFiles(now: Date, ttlMs: number, inFlightMs: numbe
 		await removeUploadFiles(id);
 		removed++;
 	}
+	return removed + (await sweepTemporaryFiles(now, inFlightMs));
+}
+
+/**
+ * This node's temporary files (one-request uploads, copies from the bucket) left by a crash. The workers' sweep runs it
+ * on their machine, and each app process once at start, so a node without a worker clears its own folder too.
+ */
+export async function sweepTemporaryFiles(now = new Date(), inFlightMs = IN_FLIGHT_MS): Promise<number> {
 	const dir = uploadDir();
 	const names = await readdir(dir).catch(() => [] as string[]);
+	let removed = 0;
 	for (const name of names.filter((n) => TEMPORARY_PREFIXES.some((prefix) => n.startsWith(prefix)))) {
 		const info = await stat(join(dir, name)).catch(() => null);
 		if (info && now.getTime() - info.mtime.getTime() > inFlightMs) {
