@@ -26,6 +26,18 @@ function watch<T>(promise: Promise<T>) {
 	return state;
 }
 
+/** `first` takes the upload's lock; a lock of `second` then waits. Returns once the holder was asked to let go. */
+async function heldThenAsked(first: PgLocker, second: PgLocker, id: string) {
+	let askedToRelease!: () => void;
+	const asked = new Promise<void>((resolve) => (askedToRelease = resolve));
+	const holder = first.newLock(id);
+	await holder.lock(never(), () => askedToRelease());
+	const waiter = second.newLock(id);
+	const waiting = watch(waiter.lock(never(), () => {}));
+	await asked;
+	return { holder, waiter, waiting };
+}
+
 afterAll(async () => {
 	await Promise.all(lockers.map((l) => l.close()));
 });
@@ -35,39 +47,26 @@ describe('the upload lock shared by every node', () => {
 		const a = node();
 		const b = node();
 		const id = uploadId();
-		let askedToRelease!: () => void;
-		const asked = new Promise<void>((resolve) => (askedToRelease = resolve));
-		const lockA = a.newLock(id);
-		await lockA.lock(never(), () => askedToRelease());
-
-		const lockB = b.newLock(id);
-		const waiting = watch(lockB.lock(never(), () => {}));
 		// node A hears node B's request through PostgreSQL, while B still waits
-		await asked;
+		const { holder, waiter, waiting } = await heldThenAsked(a, b, id);
 		expect(waiting.settled).toBe(false);
 
-		await lockA.unlock();
+		await holder.unlock();
 		await waiting.promise;
 		expect(b.held.has(id)).toBe(true);
 		expect(a.held.has(id)).toBe(false);
-		await lockB.unlock();
+		await waiter.unlock();
 		expect(b.held.has(id)).toBe(false);
 	});
 
 	test('two requests on one node take turns too (one session never shares its lock between requests)', async () => {
 		const a = node();
 		const id = uploadId();
-		let askedToRelease!: () => void;
-		const asked = new Promise<void>((resolve) => (askedToRelease = resolve));
-		const first = a.newLock(id);
-		await first.lock(never(), () => askedToRelease());
-		const second = a.newLock(id);
-		const waiting = watch(second.lock(never(), () => {}));
-		await asked;
+		const { holder, waiter, waiting } = await heldThenAsked(a, a, id);
 		expect(waiting.settled).toBe(false);
-		await first.unlock();
+		await holder.unlock();
 		await waiting.promise;
-		await second.unlock();
+		await waiter.unlock();
 		// and a third node can now take it straight away
 		const other = node().newLock(id);
 		await other.lock(never(), () => {});
