@@ -279,7 +279,7 @@ function serve() {
 	const host = env.HOST ?? '0.0.0.0';
 	env.PORT = port;
 	env.ORIGIN ??= `http://localhost:${port}`;
-	// the largest request body adapter-node accepts: a lesson image (15 MB) or one 4 MiB part of a resumable frame
+	// the largest request body adapter-node accepts: a lesson image (15 MB) or one 8 MiB part of a resumable frame
 	// upload; frames of any size come in parts, forms are bounded at 2 MB by the input gate (src/lib/server/edge)
 	env.BODY_SIZE_LIMIT ??= '16M';
 	const app = spawn(process.execPath, ['build'], { cwd: root, env, stdio: 'inherit' });

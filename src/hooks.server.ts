@@ -5,14 +5,16 @@ import { building } from '$app/environment';
 import { client } from '$lib/server/db';
 import { readSession } from '$lib/server/auth';
 import { closeQueue } from '$lib/server/attempts/queue';
+import { closeUploadLocker } from '$lib/server/attempts/uploads/pg-locker';
+import { sweepTemporaryFiles } from '$lib/server/attempts/uploads/sweep';
 import { startInlineWorker } from '$lib/server/attempts/worker';
 import { readCatalogue } from '$lib/server/lessons/catalogue';
 import { closeCompilePool } from '$lib/server/lessons/compile-pool';
 import { guardInput } from '$lib/server/edge/guard-input';
 
-// adapter-node waits for open handles before exiting: stop the job queue, then close the pool
+// adapter-node waits for open handles before exiting: stop the job queue and the upload locks, then close the pool
 process.on('sveltekit:shutdown', () => {
-	void Promise.allSettled([closeQueue(), closeCompilePool()]).finally(() => client.end({ timeout: 5 }));
+	void Promise.allSettled([closeQueue(), closeCompilePool(), closeUploadLocker()]).finally(() => client.end({ timeout: 5 }));
 });
 
 /** Grading runs inside the app unless STOPWISE_INLINE_WORKER=0; never while building. Not awaited: pages need not wait. */
@@ -21,6 +23,8 @@ export const init: ServerInit = async () => {
 	// the course files are checked once at start-up: a broken one stops the app, naming the file
 	await readCatalogue();
 	void startInlineWorker();
+	// what a crash of this node left in its own upload folder (the workers' hourly sweep may run on other machines)
+	void sweepTemporaryFiles().catch((error: unknown) => console.error('[uploads] temporary files not swept', error instanceof Error ? error.message : error));
 };
 
 /** On every response (pages get their Content-Security-Policy from `kit.csp` in svelte.config.js). */

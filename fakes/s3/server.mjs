@@ -14,11 +14,13 @@ if (process.env.STOPWISE_STORAGE !== 's3' || (endpoint && endpoint !== `http://1
 }
 
 const { default: S3rver } = await import('s3rver');
+const { addMultipartCalls } = await import('./multipart.mjs');
 const dir = resolve(process.env.FAKE_S3_DIR ?? join('.data', 's3'));
 const bucket = process.env.STOPWISE_S3_BUCKET || 'stopwise';
 
 await mkdir(dir, { recursive: true });
-const server = new S3rver({ address: '127.0.0.1', port, silent: true, directory: dir, configureBuckets: [{ name: bucket, configs: [] }] });
+// with ListParts and AbortMultipartUpload added: frames in transit are multipart uploads kept in the bucket
+const server = addMultipartCalls(new S3rver({ address: '127.0.0.1', port, silent: true, directory: dir, configureBuckets: [{ name: bucket, configs: [] }] }));
 // s3rver reports a failed listen (e.g. the port is taken) as an unhandled 'error' event: say it in one line and fail fast
 const failToStart = (e) => {
 	console.error('fake s3:', e.message);

@@ -1,5 +1,5 @@
 // Benchmark: how much a 40 MB frame raises the built app's peak resident memory (Linux VmHWM, reset before each step),
-// sent as the upload page sends it: resumable upload (tus) in 4 MiB parts, then the attempt made from the frames.
+// sent as the upload page sends it: resumable upload (tus) in parts of UPLOAD_PART_BYTES (8 MiB), then the attempt made from the frames.
 // Goals: one 40 MB frame ≤ 64 MB, two at once ≤ 128 MB. The making of the attempt (the frame checks: decoding and
 // display copies of a 24 MP pair, one padded to 40 MB) is printed beside them.
 import { once } from 'node:events';
@@ -10,6 +10,7 @@ import { createSessionFor, sessionCookieName } from '../../src/lib/server/auth';
 import { findAssignment } from '../../src/lib/server/attempts/assignment';
 import { attemptFolder } from '../../src/lib/server/attempts/keys';
 import { padJpeg } from '../../src/lib/server/attempts/uploads/padded-jpeg';
+import { makeAttemptFromUploads, sendFrame as sendFrameByParts } from '../../src/lib/server/attempts/uploads/tus-http-client';
 import { fileStore } from '../../src/lib/server/storage/index';
 import { UPLOAD_PART_BYTES } from '../../src/lib/attempts/upload-parts';
 import { startBuiltApp, memoryOf, resetPeak } from './app-process';
@@ -24,36 +25,13 @@ const GOALS = { one: 64 * MB, two: 128 * MB } as const;
 
 type Client = { base: string; cookie: string };
 
-/** A minimal tus client, as the upload page's: create, then PATCH parts of UPLOAD_PART_BYTES. */
-async function sendFrame(client: Client, frame: string, bytes: Buffer, submissionKey: string): Promise<void> {
-	const b64 = (s: string) => Buffer.from(s).toString('base64');
-	const headers = { cookie: client.cookie, origin: client.base, 'tus-resumable': '1.0.0' };
-	const created = await fetch(`${client.base}/api/v1/uploads`, {
-		method: 'POST',
-		headers: { ...headers, 'upload-length': String(bytes.length), 'upload-metadata': `assignment ${b64(ASSIGNMENT)},frame ${b64(frame)},submissionKey ${b64(submissionKey)}` }
-	});
-	if (created.status !== 201) throw new Error(`upload start answered ${created.status}: ${await created.text()}`);
-	const url = new URL(created.headers.get('location')!, client.base).href;
-	for (let offset = 0; offset < bytes.length; ) {
-		const part = bytes.subarray(offset, offset + UPLOAD_PART_BYTES);
-		const sent = await fetch(url, {
-			method: 'PATCH',
-			headers: { ...headers, 'upload-offset': String(offset), 'content-type': 'application/offset+octet-stream' },
-			body: new Uint8Array(part)
-		});
-		if (sent.status !== 204) throw new Error(`part at ${offset} answered ${sent.status}: ${await sent.text()}`);
-		offset = Number(sent.headers.get('upload-offset'));
-	}
+/** One frame as the upload page sends it, in parts of UPLOAD_PART_BYTES, to one app. */
+function sendFrame(client: Client, frame: string, bytes: Buffer, submissionKey: string): Promise<void> {
+	return sendFrameByParts([client.base], { cookie: client.cookie, origin: client.base }, { assignment: ASSIGNMENT, frame, submissionKey, bytes });
 }
 
-async function makeAttempt(client: Client, submissionKey: string): Promise<string> {
-	const form = new FormData();
-	form.append('assignment', ASSIGNMENT);
-	form.append('submissionKey', submissionKey);
-	const answer = await fetch(`${client.base}/api/v1/attempts/from-uploads`, { method: 'POST', headers: { cookie: client.cookie, origin: client.base, accept: 'application/json' }, body: form });
-	const body = (await answer.json()) as { id?: string; message?: string };
-	if (answer.status !== 201 || !body.id) throw new Error(`making the attempt answered ${answer.status}: ${body.message ?? ''}`);
-	return body.id;
+function makeAttempt(client: Client, submissionKey: string): Promise<string> {
+	return makeAttemptFromUploads(client.base, { cookie: client.cookie, origin: client.base }, { assignment: ASSIGNMENT, submissionKey });
 }
 
 /** Peak rise of the app's resident memory over what it held before `step`. */

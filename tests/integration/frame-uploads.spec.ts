@@ -13,11 +13,9 @@ import { startGradingWorker } from '$lib/server/attempts/worker';
 import { sql } from 'drizzle-orm';
 import { uploadDir } from '$lib/server/attempts/uploads/folder';
 import { sweepUploads } from '$lib/server/attempts/uploads/sweep';
-import { POST as create, DELETE as cancelAll } from '../../src/routes/api/v1/uploads/+server';
-import { DELETE, HEAD, PATCH } from '../../src/routes/api/v1/uploads/[id]/+server';
-import { POST as finish } from '../../src/routes/api/v1/attempts/from-uploads/+server';
 import { POST as postAttempt } from '../../src/routes/api/v1/attempts/+server';
-import { makeEvent, throughHooks, type TestCookies } from './support/request-event';
+import { throughHooks, type TestCookies } from './support/request-event';
+import { finishAttempt, idOf, sendParts, start, tus, uploadFrame } from './support/tus';
 import { freshLearner, removeFreshPeople, signedInCookies } from './support/people';
 import { ASSIGNMENT, attemptIdsOf, enrol, key, multipartEvent, passingPair, removeAttempts, uploadData } from './support/attempts';
 
@@ -28,61 +26,6 @@ let mine: TestCookies;
 let theirs: TestCookies;
 let pair: { reference: Buffer; lit: Buffer };
 
-const b64 = (s: string) => Buffer.from(s).toString('base64');
-const metadata = (m: Record<string, string>) =>
-	Object.entries(m)
-		.map(([k, v]) => `${k} ${b64(v)}`)
-		.join(',');
-
-/** Runs one tus request through the app's input gate and session hook, into the route's handler. */
-async function tus(method: string, path: string, cookies: TestCookies | undefined, headers: Record<string, string>, body?: BodyInit) {
-	const single = !/^\/api\/v1\/uploads(\?|$)/.test(path);
-	const event = makeEvent({ method, path, cookies, routeId: single ? '/api/v1/uploads/[id]' : '/api/v1/uploads', params: single ? { id: path.split('/').pop()! } : {} });
-	const url = new URL(path, event.url.origin);
-	(event as { request: Request }).request = new Request(url, {
-		method,
-		body,
-		headers: { origin: url.origin, 'tus-resumable': '1.0.0', ...headers },
-		...(body instanceof ReadableStream ? { duplex: 'half' } : {})
-	} as RequestInit);
-	const handler = single ? { HEAD, PATCH, DELETE }[method as 'PATCH'] : { POST: create, DELETE: cancelAll }[method as 'POST'];
-	const outcome = await throughHooks(event, (e) => handler(e as never));
-	if (outcome.kind !== 'value') throw new Error(`unexpected ${JSON.stringify(outcome)}`);
-	const response = outcome.value as Response;
-	return { status: response.status, headers: response.headers, text: await response.text() };
-}
-
-async function start(cookies: TestCookies, frame: string, size: number, submissionKey: string, assignment = ASSIGNMENT) {
-	return tus('POST', '/api/v1/uploads', cookies, { 'upload-length': String(size), 'upload-metadata': metadata({ assignment, frame, submissionKey, filename: `${frame}.jpg` }) });
-}
-
-async function sendParts(cookies: TestCookies, location: string, bytes: Buffer, part: number, from = 0) {
-	let offset = from;
-	while (offset < bytes.length) {
-		const chunk = bytes.subarray(offset, offset + part);
-		const answer = await tus('PATCH', location, cookies, { 'upload-offset': String(offset), 'content-type': 'application/offset+octet-stream' }, new Uint8Array(chunk));
-		expect(answer.status).toBe(204);
-		offset = Number(answer.headers.get('upload-offset'));
-	}
-	return offset;
-}
-
-async function uploadFrame(cookies: TestCookies, frame: string, bytes: Buffer, submissionKey: string) {
-	const created = await start(cookies, frame, bytes.length, submissionKey);
-	expect(created.status).toBe(201);
-	const location = created.headers.get('location')!;
-	expect(await sendParts(cookies, location, bytes, 16 * 1024)).toBe(bytes.length);
-	return location;
-}
-
-async function finishAttempt(cookies: TestCookies, submissionKey: string) {
-	const event = makeEvent({ method: 'POST', path: '/api/v1/attempts/from-uploads', cookies, form: { assignment: ASSIGNMENT, submissionKey, subjectBox: '0.3,0.2,0.4,0.6' } });
-	const outcome = await throughHooks(event, (e) => finish(e as never));
-	if (outcome.kind !== 'value') throw new Error(`unexpected ${JSON.stringify(outcome)}`);
-	return { status: outcome.value.status, body: await outcome.value.json() };
-}
-
-const idOf = (location: string) => location.split('/').pop()!;
 const rowsOf = (userId: string) => db.select().from(frameUploads).where(eq(frameUploads.userId, userId));
 
 beforeAll(async () => {

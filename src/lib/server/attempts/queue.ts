@@ -42,19 +42,44 @@ async function open(options: QueueOptions): Promise<PgBoss> {
 	});
 	boss.on('error', (error) => console.error('[queue]', error.message));
 	await boss.start();
-	// createQueue does nothing when the queue exists; the dead-letter queue must exist first
-	await boss.createQueue(GRADE_FAILED_QUEUE, { name: GRADE_FAILED_QUEUE, retryLimit: 5, retryDelay: 5 });
-	await boss.createQueue(GRADE_QUEUE, {
-		name: GRADE_QUEUE,
-		retryLimit: 3,
-		retryDelay: 1,
-		expireInSeconds: EXPIRE_SECONDS,
-		deadLetter: GRADE_FAILED_QUEUE
-	});
-	await boss.createQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, retryLimit: 1, expireInSeconds: 15 * 60 });
-	// a job is retried only when its worker died (the job itself ends every clip ready or failed); a long clip may take a while
-	await boss.createQueue(TRANSCODE_QUEUE, { name: TRANSCODE_QUEUE, retryLimit: 1, retryDelay: 5, expireInSeconds: 2 * 60 * 60 });
+	await createQueues(boss);
 	return boss;
+}
+
+// the first key of the lock below: ours, apart from other advisory locks
+const QUEUE_SETUP_LOCK = [0x53575153, 1] as const;
+
+/**
+ * Runs `work` while holding a PostgreSQL advisory lock on a connection of its own: pg-boss's createQueue alters tables,
+ * and several processes (workers and apps started together on a fresh database) creating the same queues at once
+ * deadlock in PostgreSQL. The lock ends with the connection if the process dies.
+ */
+async function oneProcessAtATime<T>(work: () => Promise<T>): Promise<T> {
+	const session = await client.reserve();
+	try {
+		await session`select pg_advisory_lock(${QUEUE_SETUP_LOCK[0]}::int, ${QUEUE_SETUP_LOCK[1]}::int)`;
+		try {
+			return await work();
+		} finally {
+			await session`select pg_advisory_unlock(${QUEUE_SETUP_LOCK[0]}::int, ${QUEUE_SETUP_LOCK[1]}::int)`;
+		}
+	} finally {
+		session.release();
+	}
+}
+
+/** Creates a pg-boss queue (nothing when it exists) under the setup lock above: the one way queues are made. */
+export function ensureQueue(boss: PgBoss, name: string, options: Omit<PgBoss.Queue, 'name'>): Promise<void> {
+	return oneProcessAtATime(() => boss.createQueue(name, { ...options, name }));
+}
+
+async function createQueues(boss: PgBoss): Promise<void> {
+	// the dead-letter queue must exist first
+	await ensureQueue(boss, GRADE_FAILED_QUEUE, { retryLimit: 5, retryDelay: 5 });
+	await ensureQueue(boss, GRADE_QUEUE, { retryLimit: 3, retryDelay: 1, expireInSeconds: EXPIRE_SECONDS, deadLetter: GRADE_FAILED_QUEUE });
+	await ensureQueue(boss, SWEEP_QUEUE, { retryLimit: 1, expireInSeconds: 15 * 60 });
+	// a job is retried only when its worker died (the job itself ends every clip ready or failed); a long clip may take a while
+	await ensureQueue(boss, TRANSCODE_QUEUE, { retryLimit: 1, retryDelay: 5, expireInSeconds: 2 * 60 * 60 });
 }
 
 /** The process's pg-boss, started (and its schema installed) on first use. */

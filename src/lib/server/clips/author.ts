@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm';
 import { normaliseCaptions } from '../../clips/webvtt';
 import type { ClipInput } from '../../forms/clips';
 import type { ClipCard } from '../../lessons/page-data';
-import { removeUploadFiles } from '../attempts/uploads/folder';
+import { removeUploadFiles } from '../attempts/uploads/in-transit';
 import { db } from '../db/index';
 import { lessons } from '../db/schema';
 import { fileStore } from '../storage/index';

@@ -1,8 +1,7 @@
 // The transcoding job of one clip (pg-boss queue `transcode-clip`): claims the clip, makes its renditions with progress
 // written as it goes, and ends ready or failed with a message; the uploaded source is removed either way.
-import { join } from 'node:path';
 import { openQueue, TRANSCODE_QUEUE, wakeGradingWorkers } from '../attempts/queue';
-import { removeUploadFiles, uploadDir } from '../attempts/uploads/folder';
+import { removeUploadFiles, uploadsInTransit, type LocalCopy } from '../attempts/uploads/in-transit';
 import { MediaError } from './ffmpeg';
 import { claimForTranscoding, markFailed, markReady, setProgress } from './records';
 import { makeRenditions } from './renditions';
@@ -35,8 +34,12 @@ export async function transcodeClip(clipId: string, options: { limits?: ClipLimi
 		written = now;
 		writing = writing.then(() => setProgress(clipId, Math.round(fraction * 1000) / 1000)).catch(() => undefined);
 	};
+	// the video as a file on this node (copied from the bucket when the uploads wait there): ffmpeg reads a path
+	let source: LocalCopy | null = null;
 	try {
-		const done = await makeRenditions(clipId, join(uploadDir(), uploadId), onProgress, options.limits);
+		source = await uploadsInTransit().localCopy(uploadId);
+		if (!source) throw new MediaError(`upload ${uploadId} is gone`, 'The uploaded video is no longer here. Upload it again.');
+		const done = await makeRenditions(clipId, source.path, onProgress, options.limits);
 		await writing;
 		await markReady(clipId, done);
 		return 'ready';
@@ -46,6 +49,7 @@ export async function transcodeClip(clipId: string, options: { limits?: ClipLimi
 		await markFailed(clipId, error instanceof MediaError ? error.authorMessage : FAILED);
 		return 'failed';
 	} finally {
+		await source?.release();
 		await removeUploadFiles(uploadId);
 	}
 }

@@ -2,7 +2,7 @@
 // author, only for a clip added and still waiting for its file, only up to the clip size limit.
 import type { Upload } from '@tus/server';
 import type { AuthUser } from '../auth';
-import { removeUploadFiles } from '../attempts/uploads/folder';
+import { removeUploadFiles } from '../attempts/uploads/in-transit';
 import { refusal } from '../attempts/uploads/refusal';
 import { isClipId } from './keys';
 import { clipLimits } from './limits';

@@ -2,6 +2,7 @@
 // mails each member who has not sent an Attempt yet, once per cohort and Assignment.
 import { and, eq, gt, isNull, lte, sql } from 'drizzle-orm';
 import type PgBoss from 'pg-boss';
+import { ensureQueue } from '../attempts/queue';
 import { db } from '../db';
 import { assignments, cohortDueDates, cohortMembers, cohorts, courses, lessons, users } from '../db/schema';
 import { sendLetter } from '../mail';
@@ -14,7 +15,7 @@ export const REMINDER_CRON = '7 * * * *';
 export const REMIND_HOURS_BEFORE = 48;
 
 export async function ensureReminderQueue(boss: PgBoss): Promise<void> {
-	await boss.createQueue(REMINDER_QUEUE, { name: REMINDER_QUEUE, retryLimit: 2, expireInSeconds: 15 * 60 });
+	await ensureQueue(boss, REMINDER_QUEUE, { retryLimit: 2, expireInSeconds: 15 * 60 });
 }
 
 /**

@@ -1,6 +1,6 @@
 // pg-boss jobs of field days: a held or offered seat runs out at its time limit (a persisted job, not a timer in the web process).
 import type PgBoss from 'pg-boss';
-import { openQueue } from '../attempts/queue';
+import { ensureQueue, openQueue } from '../attempts/queue';
 
 export const SEAT_EXPIRY_QUEUE = 'field-day-seat-expiry';
 
@@ -9,7 +9,7 @@ export interface SeatExpiryJob {
 }
 
 export async function ensureFieldDayQueues(boss: PgBoss): Promise<void> {
-	await boss.createQueue(SEAT_EXPIRY_QUEUE, { name: SEAT_EXPIRY_QUEUE, retryLimit: 5, retryDelay: 30, expireInSeconds: 300 });
+	await ensureQueue(boss, SEAT_EXPIRY_QUEUE, { retryLimit: 5, retryDelay: 30, expireInSeconds: 300 });
 }
 
 /** Queues the expiry check of one booking's hold for `at`; the job itself re-reads the booking, so a stale job does nothing. */

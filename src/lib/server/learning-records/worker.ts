@@ -1,6 +1,7 @@
 // The delivery job (pg-boss): one queue whose jobs each send the backlog; sent on NOTIFY after an event and every
 // minute by cron, retried with backoff while the LRS is down. The queue is "stately": one waiting and one running job.
 import type PgBoss from 'pg-boss';
+import { ensureQueue } from '../attempts/queue';
 import { client } from '../db';
 import { deliverWaiting } from './deliver';
 import { DELIVERY_CHANNEL } from './outbox';
@@ -10,7 +11,7 @@ export const DELIVERY_CRON = '* * * * *';
 
 export async function createDeliveryQueue(boss: PgBoss): Promise<void> {
 	// retries after about 5 s, 10 s, 20 s … (backoff); whatever is still waiting is picked up by the next minute's job
-	await boss.createQueue(DELIVERY_QUEUE, { name: DELIVERY_QUEUE, policy: 'stately', retryLimit: 6, retryDelay: 5, retryBackoff: true, expireInSeconds: 10 * 60 });
+	await ensureQueue(boss, DELIVERY_QUEUE, { policy: 'stately', retryLimit: 6, retryDelay: 5, retryBackoff: true, expireInSeconds: 10 * 60 });
 }
 
 /** Sends a delivery job unless one already waits (the stately queue refuses a second; send then returns null). */

@@ -6,6 +6,7 @@ import {
 	ListObjectsCommand,
 	PutObjectCommand,
 	S3Client,
+	type S3ClientConfig,
 	type _Object
 } from '@aws-sdk/client-s3';
 import { checkKey, checkRange, type FileStore } from './store';
@@ -60,8 +61,9 @@ function sliceStream(source: ReadableStream<Uint8Array>, skip: number, length: n
 	});
 }
 
-export function createS3Store(options: S3StoreOptions): FileStore {
-	const client = new S3Client({
+/** The SDK client's settings for these options (the file store and the uploads in transit use the same). */
+export function s3ClientConfig(options: S3StoreOptions): S3ClientConfig {
+	return {
 		region: options.region,
 		endpoint: options.endpoint,
 		forcePathStyle: options.forcePathStyle,
@@ -70,7 +72,11 @@ export function createS3Store(options: S3StoreOptions): FileStore {
 		// checksums only where the API demands them: S3-compatible services (the fake among them) do not all know the newer headers
 		requestChecksumCalculation: 'WHEN_REQUIRED',
 		responseChecksumValidation: 'WHEN_REQUIRED'
-	});
+	};
+}
+
+export function createS3Store(options: S3StoreOptions): FileStore {
+	const client = new S3Client(s3ClientConfig(options));
 	const Bucket = options.bucket;
 	const keyOf = (key: string) => checkKey(key).join('/');
 

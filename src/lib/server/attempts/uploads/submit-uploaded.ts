@@ -4,7 +4,7 @@ import type { AuthUser } from '../../auth';
 import { findAssignment } from '../assignment';
 import { existingAttemptId, submitAttempt, type SubmitResult } from '../submit';
 import type { UploadForm } from '../upload-form';
-import { removeUploadFiles, uploadedFile } from './folder';
+import { removeUploadFiles, uploadedFile } from './in-transit';
 import { deleteUploadRows, uploadsOfSubmission } from './records';
 
 async function forget(ids: readonly string[]): Promise<void> {
@@ -22,26 +22,31 @@ export async function submitUploaded(user: Pick<AuthUser, 'id' | 'roles'>, form:
 		await forget(rows.map((r) => r.id));
 		return { kind: 'duplicate', id: earlier };
 	}
-	const files = new Map<string, File>();
 	const unfinished: Record<string, string> = {};
 	for (const row of rows) {
-		if (!row.finishedAt) {
-			unfinished[row.frameName] = 'This frame has not finished uploading. Keep the page open until it reaches 100 %.';
-			continue;
-		}
-		const file = await uploadedFile(row.id, row.frameName, row.size);
-		if (file) files.set(row.frameName, file);
+		if (!row.finishedAt) unfinished[row.frameName] = 'This frame has not finished uploading. Keep the page open until it reaches 100 %.';
 	}
 	if (Object.keys(unfinished).length) return { kind: 'invalid', message: 'Some frames are still uploading. Nothing was stored yet.', frames: unfinished };
 
+	const files = new Map<string, File>();
+	// copies made on this node's disk when the uploads wait in the bucket: removed whatever happens
+	const releases: (() => Promise<void>)[] = [];
 	let result: SubmitResult;
 	try {
+		for (const row of rows) {
+			const found = await uploadedFile(row.id, row.frameName, row.size);
+			if (!found) continue;
+			files.set(row.frameName, found.file);
+			releases.push(found.release);
+		}
 		result = await submitAttempt(user, { ...form, files });
 	} catch (error) {
 		// a twin request that stored the attempt first removes these files while they are read: answer with its attempt
 		const twin = await existingAttemptId(user.id, form.submissionKey);
 		if (twin) return { kind: 'duplicate', id: twin };
 		throw error;
+	} finally {
+		await Promise.all(releases.map((release) => release().catch(() => undefined)));
 	}
 	if (result.kind === 'created' || result.kind === 'duplicate') await forget(rows.map((r) => r.id));
 	return result;

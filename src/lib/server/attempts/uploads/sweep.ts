@@ -11,9 +11,9 @@ import { fileStore } from '../../storage/index';
 import { attemptFolder } from '../keys';
 import { clipFolder, isClipId } from '../../clips/keys';
 import { abandonedClips, deleteClipRow, existingClipIds, knownClipUploads } from '../../clips/records';
-import { isUploadId, removeUploadFiles, uploadDir } from './folder';
+import { TEMPORARY_PREFIXES, uploadDir } from './folder';
+import { removeUploadFiles, uploadsInTransit, UPLOAD_TTL_MS } from './in-transit';
 import { deleteUploadRows, sweepableUploads } from './records';
-import { UPLOAD_TTL_MS } from './tus';
 
 /** An attempt folder or temporary upload this recent may still be in the middle of its request. */
 export const IN_FLIGHT_MS = 60 * 60 * 1000;
@@ -46,28 +46,35 @@ export async function sweepUploads(now = new Date(), ttlMs = UPLOAD_TTL_MS, inFl
 	return report;
 }
 
-/** Upload bytes whose row is gone (a learner deleted, a crash before the row) and old one-request temp folders. */
+/** Upload bytes whose row is gone (a learner deleted, a crash before the row) and old temporary files of this node. */
 async function sweepStrayUploadFiles(now: Date, ttlMs: number, inFlightMs: number): Promise<number> {
-	const dir = uploadDir();
-	const names = await readdir(dir).catch(() => [] as string[]);
-	const ids = [...new Set(names.map((n) => n.replace(/\.json$/, '')).filter(isUploadId))];
+	const held = await uploadsInTransit().held();
 	const known = new Set<string>();
-	for (let i = 0; i < ids.length; i += 500) {
-		const rows = await db.select({ id: frameUploads.id }).from(frameUploads).where(inArray(frameUploads.id, ids.slice(i, i + 500)));
+	for (let i = 0; i < held.length; i += 500) {
+		const ids = held.slice(i, i + 500).map((h) => h.id);
+		const rows = await db.select({ id: frameUploads.id }).from(frameUploads).where(inArray(frameUploads.id, ids));
 		for (const r of rows) known.add(r.id);
-		for (const id of await knownClipUploads(ids.slice(i, i + 500))) known.add(id);
+		for (const id of await knownClipUploads(ids)) known.add(id);
 	}
 	let removed = 0;
-	for (const id of ids) {
-		if (known.has(id)) continue;
-		const info = (await stat(join(dir, `${id}.json`)).catch(() => null)) ?? (await stat(join(dir, id)).catch(() => null));
+	for (const { id, modifiedAt } of held) {
 		// a row is written before the bytes; one without a row for this long was never going to get one
-		if (info && now.getTime() - info.mtime.getTime() > Math.min(ttlMs, inFlightMs)) {
-			await removeUploadFiles(id);
-			removed++;
-		}
+		if (known.has(id) || now.getTime() - modifiedAt.getTime() <= Math.min(ttlMs, inFlightMs)) continue;
+		await removeUploadFiles(id);
+		removed++;
 	}
-	for (const name of names.filter((n) => n.startsWith('multipart-'))) {
+	return removed + (await sweepTemporaryFiles(now, inFlightMs));
+}
+
+/**
+ * This node's temporary files (one-request uploads, copies from the bucket) left by a crash. The workers' sweep runs it
+ * on their machine, and each app process once at start, so a node without a worker clears its own folder too.
+ */
+export async function sweepTemporaryFiles(now = new Date(), inFlightMs = IN_FLIGHT_MS): Promise<number> {
+	const dir = uploadDir();
+	const names = await readdir(dir).catch(() => [] as string[]);
+	let removed = 0;
+	for (const name of names.filter((n) => TEMPORARY_PREFIXES.some((prefix) => n.startsWith(prefix)))) {
 		const info = await stat(join(dir, name)).catch(() => null);
 		if (info && now.getTime() - info.mtime.getTime() > inFlightMs) {
 			await rm(join(dir, name), { recursive: true, force: true });

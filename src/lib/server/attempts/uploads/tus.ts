@@ -1,9 +1,9 @@
-// The resumable upload endpoint (tus protocol, @tus/server on a file store): who may start, resume or cancel an upload,
-// and the limits: a known size up to the frame limit, only the assignment's own frames, one upload per frame. A lesson
+// The resumable upload endpoint (tus protocol, @tus/server on the uploads in transit: this node's disk or the shared
+// bucket, with a PostgreSQL lock per upload so two nodes never write one upload at once): who may start, resume or
+// cancel an upload, and the limits: a known size up to the frame limit, only the assignment's own frames, one upload per frame. A lesson
 // clip's video comes in by the same endpoint (Upload-Metadata `kind: clip`), checked by `clips/upload.ts`.
 import { randomBytes } from 'node:crypto';
 import { Server, type Upload } from '@tus/server';
-import { FileStore } from '@tus/file-store';
 import type { AuthUser } from '../../auth';
 import { decideAccess, guardedAssignment } from '../../lessons/access';
 import { planGateMessage } from '../../shoot-plans/read';
@@ -12,15 +12,15 @@ import { maxUploadBytes } from '../limits';
 import { existingAttemptId } from '../submit';
 import { clipLimits } from '../../clips/limits';
 import { clipTooLarge, finishClipUpload, isClipUpload, mayResumeClipUpload, startClipUpload } from '../../clips/upload';
-import { removeUploadFiles, uploadDir } from './folder';
+import { removeUploadFiles, uploadsInTransit, UPLOAD_TTL_MS, type UploadsInTransit } from './in-transit';
+import { uploadLocker } from './pg-locker';
 import { refusal, type Refusal } from './refusal';
 import { readUploadMetadata } from './metadata';
 import { deleteUploadRows, findUpload, markFinished, otherOpenSubmissions, recordUpload, uploadsOfSubmission } from './records';
 import { tooLargeMessage } from '../../../attempts/upload-checks';
 
 export const UPLOAD_PATH = '/api/v1/uploads';
-/** An upload not finished and made into an attempt within this time is swept (and answers 410 Gone before that). */
-export const UPLOAD_TTL_MS = 24 * 60 * 60 * 1000;
+export { UPLOAD_TTL_MS };
 /** Submissions one learner may have in transit besides the one being started; older ones are dropped. */
 const OPEN_SUBMISSIONS = 3;
 
@@ -92,11 +92,13 @@ async function checkOwner(req: Request, id: string): Promise<void> {
 	if (!row || row.userId !== user.id) throw refusal(404, 'not-found', 'This upload is not (or no longer) here. Send the frame again.');
 }
 
-function createServer(): Server {
+function createServer(uploads: UploadsInTransit): Server {
 	const options: ConstructorParameters<typeof Server>[0] = {
 		path: UPLOAD_PATH,
 		relativeLocation: true,
-		datastore: new FileStore({ directory: uploadDir(), expirationPeriodInMilliseconds: UPLOAD_TTL_MS }),
+		datastore: uploads.datastore,
+		// one lock per upload across every node (the default lock holds only within this process)
+		locker: uploadLocker(),
 		// the larger of the two limits: each kind checks its own when the upload starts
 		maxSize: () => Math.max(maxUploadBytes(), clipLimits().bytes),
 		// same origin only: no CORS headers for anyone
@@ -135,7 +137,7 @@ function declaredFileName(header: string): string {
 	return value ? Buffer.from(value, 'base64').toString('utf8').slice(0, 200) : '';
 }
 
-let server: Server | undefined;
+let server: { for: UploadsInTransit; tus: Server } | undefined;
 
 /**
  * A part's body that ends, instead of failing, where the connection was cut: tus then keeps every byte that arrived and
@@ -176,13 +178,14 @@ function withJsonType(headers: Headers): Headers {
 
 /** Answers one tus request (POST, HEAD, PATCH, DELETE) for a signed-in person. */
 export async function handleUpload(incoming: Request, user: Uploader): Promise<Response> {
-	server ??= createServer();
+	const uploads = uploadsInTransit();
+	if (server?.for !== uploads) server = { for: uploads, tus: createServer(uploads) };
 	const request =
 		incoming.method === 'PATCH' && incoming.body
 			? new Request(incoming.url, { method: 'PATCH', headers: incoming.headers, body: keepWhatArrives(incoming.body), duplex: 'half' } as RequestInit)
 			: incoming;
 	uploaders.set(request, user);
-	const response = await asJsonError(await server.handleWeb(request));
+	const response = await asJsonError(await server.tus.handleWeb(request));
 	// a cancelled upload leaves no row behind (tus removed its bytes)
 	if (request.method === 'DELETE' && response.status === 204) {
 		const id = new URL(request.url).pathname.split('/').pop() ?? '';
