@@ -65,7 +65,7 @@ export function createVisitorPageCache({ maxBytes, readEpoch = readContentEpoch 
 	return { handle, stats: () => ({ pages: kept.size, bytes: kept.calculatedSize }) };
 }
 
-/** The whole address as requested: path, query, and a data request's own suffix. */
+/** The whole address as requested, query included (a page may read it, as the course page reads `?locked=`). */
 function keyOf(event: RequestEvent): string {
 	return event.request.url;
 }

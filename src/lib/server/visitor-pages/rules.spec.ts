@@ -6,19 +6,21 @@ const request = (init: { method?: string; headers?: Record<string, string> } = {
 
 describe('a visitor page request', () => {
 	test('is a GET without cookie or credentials, for a route on the allow-list', () => {
-		expect(isVisitorPageRequest({ request: request(), route: { id: '/(public)/courses/[course]' } })).toBe(true);
-		expect(isVisitorPageRequest({ request: request(), route: { id: '/(public)' } })).toBe(true);
-		expect(isVisitorPageRequest({ request: request({ headers: { cookie: 'a=b' } }), route: { id: '/(public)/courses/[course]' } })).toBe(false);
-		expect(isVisitorPageRequest({ request: request({ headers: { authorization: 'Basic eDp5' } }), route: { id: '/(public)' } })).toBe(false);
-		expect(isVisitorPageRequest({ request: request({ method: 'POST' }), route: { id: '/(public)/courses/[course]' } })).toBe(false);
-		expect(isVisitorPageRequest({ request: request({ method: 'HEAD' }), route: { id: '/(public)' } })).toBe(false);
+		expect(isVisitorPageRequest({ request: request(), isDataRequest: false, route: { id: '/(public)/courses/[course]' } })).toBe(true);
+		expect(isVisitorPageRequest({ request: request(), isDataRequest: false, route: { id: '/(public)' } })).toBe(true);
+		expect(isVisitorPageRequest({ request: request({ headers: { cookie: 'a=b' } }), isDataRequest: false, route: { id: '/(public)/courses/[course]' } })).toBe(false);
+		expect(isVisitorPageRequest({ request: request({ headers: { authorization: 'Basic eDp5' } }), isDataRequest: false, route: { id: '/(public)' } })).toBe(false);
+		expect(isVisitorPageRequest({ request: request({ method: 'POST' }), isDataRequest: false, route: { id: '/(public)/courses/[course]' } })).toBe(false);
+		expect(isVisitorPageRequest({ request: request({ method: 'HEAD' }), isDataRequest: false, route: { id: '/(public)' } })).toBe(false);
+		// the client router's data requests are Kit's private, no-store answers
+		expect(isVisitorPageRequest({ request: request(), isDataRequest: true, route: { id: '/(public)/courses/[course]' } })).toBe(false);
 	});
 
 	test('never for a route the list does not name: learners, staff, the API, unknown addresses', () => {
 		for (const id of ['/(learn)/progress', '/(author)/author', '/(admin)/admin', '/(mentor)/mentor', '/api/v1/me', '/(learn)/attempts/[id]', '/(public)/signin']) {
-			expect(isVisitorPageRequest({ request: request(), route: { id } }), id).toBe(false);
+			expect(isVisitorPageRequest({ request: request(), isDataRequest: false, route: { id } }), id).toBe(false);
 		}
-		expect(isVisitorPageRequest({ request: request(), route: { id: null } })).toBe(false);
+		expect(isVisitorPageRequest({ request: request(), isDataRequest: false, route: { id: null } })).toBe(false);
 	});
 });
 

@@ -17,10 +17,13 @@ export const CACHED_ROUTES: ReadonlySet<string> = new Set([
 	'/(public)/instructors/[slug]'
 ]);
 
-/** A GET from someone without any cookie or credentials, for a page on the allow-list (its data request included). */
-export function isVisitorPageRequest(event: { request: Request; route: { id: string | null } }): boolean {
+/**
+ * A GET of a whole page on the allow-list from someone without any cookie or credentials. Not the client router's data
+ * requests (`__data.json`): Kit marks those `private, no-store`, so they would never be kept anyway.
+ */
+export function isVisitorPageRequest(event: { request: Request; route: { id: string | null }; isDataRequest: boolean }): boolean {
 	const { request } = event;
-	if (request.method !== 'GET') return false;
+	if (request.method !== 'GET' || event.isDataRequest) return false;
 	if (request.headers.has('cookie') || request.headers.has('authorization')) return false;
 	return event.route.id !== null && CACHED_ROUTES.has(event.route.id);
 }
