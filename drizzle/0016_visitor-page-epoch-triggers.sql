@@ -1,6 +1,6 @@
 -- The content epoch of the visitor page cache (src/lib/server/visitor-pages): the one row, and triggers that raise it
 -- once per committing transaction that changes a table the cached pages read (their queries: lessons/page-query.ts,
--- courses.ts, clips/records.ts, instructors.ts). Row triggers are deferred to commit, so the row is locked only while
+-- courses.ts, instructors.ts). Row triggers are deferred to commit, so the row is locked only while
 -- a transaction commits (writers do not queue behind each other's open transactions, and cannot deadlock on it);
 -- TRUNCATE, which has no row trigger, raises it at once. Written by hand: drizzle-kit cannot express triggers.
 INSERT INTO "visitor_page_epoch" ("id", "epoch") VALUES (1, 0) ON CONFLICT ("id") DO NOTHING;
