@@ -1,4 +1,5 @@
-// Request hooks: security headers, the input gate (body limits, unstorable characters), then the session (who is signed in, with which roles) into locals.
+// Request hooks: security headers, the visitor page cache (public pages a visitor without cookies gets from memory),
+// the input gate (body limits, unstorable characters), then the session (who is signed in, with which roles) into locals.
 import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
@@ -11,6 +12,7 @@ import { startInlineWorker } from '$lib/server/attempts/worker';
 import { readCatalogue } from '$lib/server/lessons/catalogue';
 import { closeCompilePool } from '$lib/server/lessons/compile-pool';
 import { guardInput } from '$lib/server/edge/guard-input';
+import { visitorPageCache } from '$lib/server/visitor-pages';
 
 // adapter-node waits for open handles before exiting: stop the job queue and the upload locks, then close the pool
 process.on('sveltekit:shutdown', () => {
@@ -49,7 +51,8 @@ export const authenticate: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(securityHeaders, guardInput, authenticate);
+// the cache answers only cookieless GETs of allow-listed pages, which neither the gate nor the session would change
+export const handle = sequence(securityHeaders, visitorPageCache.handle, guardInput, authenticate);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	if (status !== 404) console.error(`[${event.request.method} ${event.url.pathname}]`, error);

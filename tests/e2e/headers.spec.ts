@@ -1,5 +1,6 @@
-// Security headers on the built app: a nonce-based Content-Security-Policy that forbids framing, nosniff, a referrer
+// Security headers on the built app: a hash-based Content-Security-Policy that forbids framing, nosniff, a referrer
 // policy; and pages still hydrate and run their calculators under the policy, with no violation reported.
+import { createHash } from 'node:crypto';
 import { expect, test, type Page } from '@playwright/test';
 
 function watchViolations(page: Page): string[] {
@@ -17,14 +18,17 @@ test('pages carry the policy headers; API answers carry nosniff and no framing',
 	expect(csp).toBeTruthy();
 	expect(csp).toContain("frame-ancestors 'none'");
 	expect(csp).toContain("object-src 'none'");
-	expect(csp).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=_-]+'/);
+	expect(csp).toMatch(/script-src 'self' 'sha256-[A-Za-z0-9+/]+=*'/);
 	expect(csp).not.toMatch(/script-src[^;]*'unsafe-inline'/);
+	expect(csp).not.toContain("'nonce-");
 	expect(headers['x-content-type-options']).toBe('nosniff');
 	expect(headers['referrer-policy']).toBe('same-origin');
 	expect(headers['x-frame-options']).toBe('DENY');
-	// a fresh nonce per response
-	const again = (await request.get('/')).headers()['content-security-policy'];
-	expect(again).not.toBe(csp);
+	// the only scripts allowed inline are the page's own, by the SHA-256 of their text (CSP Level 3, hash-source)
+	const inline = [...(await page.text()).matchAll(/<script>([\s\S]*?)<\/script>/g)].map((m) => m[1]);
+	expect(inline.length).toBeGreaterThan(0);
+	const allowed = [...csp.matchAll(/'sha256-([A-Za-z0-9+/]+=*)'/g)].map((m) => m[1]);
+	expect(allowed.sort()).toEqual(inline.map((text) => createHash('sha256').update(text).digest('base64')).sort());
 
 	const api = await request.get('/api/health');
 	expect(api.headers()['x-content-type-options']).toBe('nosniff');

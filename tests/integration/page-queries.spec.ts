@@ -3,7 +3,7 @@
 import { afterAll, describe, expect, test } from 'vitest';
 import { and, asc, eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { assignments, courses, lessons, modules } from '$lib/server/db/schema';
+import { assignments, courses, lessonClips, lessons, modules } from '$lib/server/db/schema';
 import { readCoursePage } from '$lib/server/courses';
 import { readLessonPageRows } from '$lib/server/lessons/page-query';
 import { gearFor } from '$lib/server/grading/gear';
@@ -51,6 +51,28 @@ describe('the lesson page query', () => {
 		const expected = await db.query.assignments.findMany({ where: eq(assignments.lessonId, withOne.lessonId), orderBy: asc(assignments.position) });
 		const read = await readLessonPageRows(COURSE, withOne.slug);
 		expect(read!.assignments).toEqual(expected.map(({ id, slug, title, brief, spec }) => ({ id, slug, title, brief, spec })));
+	});
+
+	test('its ready clips, oldest first, as the clips table holds them', async () => {
+		const ready = await db.select().from(lessonClips).where(eq(lessonClips.status, 'ready')).orderBy(asc(lessonClips.createdAt));
+		// the demo's clip is rendered at seed time when ffmpeg is there (the bootstrap installs it)
+		expect(ready.length).toBeGreaterThan(0);
+		const [withClip] = await db.select({ slug: lessons.slug }).from(lessons).where(eq(lessons.id, ready[0].lessonId));
+		const read = await readLessonPageRows(COURSE, withClip.slug);
+		const expected = ready.filter((c) => c.lessonId === ready[0].lessonId);
+		expect(read!.clips).toEqual(
+			expected.map(({ id, name, title, status, progress, error, durationSeconds, renditions, poster }) => ({ id, name, title, status, progress, error, durationSeconds, renditions, poster }))
+		);
+		// one still on its way (uploading) is left out until it is ready
+		const [waiting] = await db
+			.insert(lessonClips)
+			.values({ id: crypto.randomUUID(), lessonId: ready[0].lessonId, name: `t-waiting-${Date.now()}`, title: 'Not yet', captions: 'WEBVTT\n' })
+			.returning();
+		restore.push(() => db.delete(lessonClips).where(eq(lessonClips.id, waiting.id)));
+		expect((await readLessonPageRows(COURSE, withClip.slug))!.clips.map((c) => c.id)).toEqual(expected.map((c) => c.id));
+		// a lesson without clips has none
+		const without = await readLessonPageRows(COURSE, 'what-a-stop-is');
+		expect(without!.clips).toEqual(await db.select().from(lessonClips).where(and(eq(lessonClips.lessonId, without!.lesson.id), eq(lessonClips.status, 'ready'))));
 	});
 
 	test('an unknown, unpublished or unpublished-course lesson is not found; a change in the database shows at once', async () => {

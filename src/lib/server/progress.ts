@@ -1,6 +1,6 @@
 // A learner's progress: lessons visited and completed, saved quiz answers, and where to pick up again.
 import { and, desc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizzle-orm';
-import { db } from './db';
+import { client, db } from './db';
 import { courses, enrolments, lessonProgress, lessons, modules, quizAnswers, type Role } from './db/schema';
 
 import type { SavedQuizAnswers } from '../lessons/page-data';
@@ -8,19 +8,22 @@ import { deliverSoon, recordLessonCompleted, recordQuizAnswered } from './learni
 
 export type SavedAnswers = SavedQuizAnswers;
 
-/** Notes the visit (for "Continue") and returns what the lesson page shows: completion and saved answers. */
+/** Notes the visit (for "Continue") and returns what the lesson page shows: completion and saved answers, in one round trip. */
 export async function visitLesson(userId: string, lessonId: number): Promise<{ completed: boolean; quizAnswers: SavedAnswers }> {
-	const [[row], answers] = await Promise.all([
-		db
-			.insert(lessonProgress)
-			.values({ userId, lessonId })
-			.onConflictDoUpdate({ target: [lessonProgress.userId, lessonProgress.lessonId], set: { lastVisitedAt: sql`now()` } })
-			.returning({ completedAt: lessonProgress.completedAt }),
-		db.select().from(quizAnswers).where(and(eq(quizAnswers.userId, userId), eq(quizAnswers.lessonId, lessonId)))
-	]);
+	const [row] = await client<{ completed: boolean; answers: { quizId: string; answer: string; correct: boolean }[] }[]>`
+		with visit as (
+			insert into lesson_progress (user_id, lesson_id) values (${userId}, ${lessonId})
+			on conflict (user_id, lesson_id) do update set last_visited_at = now()
+			returning completed_at
+		)
+		select (select completed_at is not null from visit) as completed,
+			coalesce((
+				select json_agg(json_build_object('quizId', q.quiz_id, 'answer', q.answer, 'correct', q.correct))
+				from quiz_answers q where q.user_id = ${userId} and q.lesson_id = ${lessonId}
+			), '[]'::json) as answers`;
 	return {
-		completed: row.completedAt !== null,
-		quizAnswers: Object.fromEntries(answers.map((a) => [a.quizId, { answer: a.answer, correct: a.correct }]))
+		completed: row.completed,
+		quizAnswers: Object.fromEntries(row.answers.map((a) => [a.quizId, { answer: a.answer, correct: a.correct }]))
 	};
 }
 

@@ -3,7 +3,10 @@ import type { ClipCard } from '../../lessons/page-data';
 import { clipUrl } from './keys';
 import { clipsOfLesson, type LessonClip } from './records';
 
-export function clipCard(clip: LessonClip): ClipCard {
+/** What a card is made from: the clip's row less its upload, captions text and bookkeeping. */
+export type ClipCardSource = Pick<LessonClip, 'id' | 'name' | 'title' | 'status' | 'progress' | 'error' | 'durationSeconds' | 'renditions' | 'poster'>;
+
+export function clipCard(clip: ClipCardSource): ClipCard {
 	const ready = clip.status === 'ready';
 	return {
 		id: clip.id,
@@ -19,8 +22,7 @@ export function clipCard(clip: LessonClip): ClipCard {
 	};
 }
 
-/** Called only after the lesson's access rule let the viewer in: learners get ready clips, the editor every one. */
-export async function lessonClipCards(lessonId: number, options: { readyOnly: boolean }): Promise<ClipCard[]> {
-	const rows = await clipsOfLesson(lessonId);
-	return rows.filter((c) => !options.readyOnly || c.status === 'ready').map(clipCard);
+/** Every clip of a lesson with its state, for its editor (learners' ready clips come with the lesson page's one query). */
+export async function lessonClipCards(lessonId: number): Promise<ClipCard[]> {
+	return (await clipsOfLesson(lessonId)).map(clipCard);
 }

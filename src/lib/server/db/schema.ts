@@ -2,7 +2,9 @@
 import { sql } from 'drizzle-orm';
 import type { AssignmentSpecInput, ClipRendition, PlanLayout, StoredAnalysis, StoredResult, SubjectBox } from './json-types';
 import {
+	bigint,
 	boolean,
+	check,
 	index,
 	integer,
 	jsonb,
@@ -814,3 +816,19 @@ export const cohortDueDates = pgTable(
 	(t) => [primaryKey({ columns: [t.cohortId, t.assignmentId] }), index('cohort_due_dates_due_idx').on(t.dueAt)]
 );
 // ---- end cohorts ----
+
+// ---- visitor page cache ----
+/**
+ * One row: the content epoch of the pages a visitor may be served from memory (src/lib/server/visitor-pages).
+ * Triggers (migration visitor-page-epoch, written by hand: drizzle cannot express triggers) raise it once per
+ * committing transaction that changes a table those pages read, so every app process sees a change on its next request.
+ */
+export const visitorPageEpoch = pgTable(
+	'visitor_page_epoch',
+	{
+		id: integer('id').primaryKey().default(1),
+		epoch: bigint('epoch', { mode: 'bigint' }).notNull().default(sql`0`)
+	},
+	(t) => [check('visitor_page_epoch_one_row', sql`${t.id} = 1`)]
+);
+// ---- end visitor page cache ----

@@ -1,15 +1,18 @@
 // Everything a lesson page reads from the database, in one round trip: the lesson with its module and course, its
-// Assignments in order, and its place in the course's reading order (previous, next, position, count).
-// One prepared statement instead of three queries: the lesson page is the most visited page of the app.
+// Assignments in order, its ready clips, and its place in the course's reading order (previous, next, position, count).
+// One prepared statement instead of four queries: the lesson page is the most visited page of the app.
 import { client } from '../db';
 import type { Assignment, Lesson } from '../db/schema';
 import type { LessonPageData } from '../../lessons/page-data';
+import type { ClipCardSource } from '../clips/view';
 
 export type LessonPageRows = {
 	lesson: Pick<Lesson, 'id' | 'slug' | 'title' | 'summary' | 'minutes' | 'freePreview' | 'source' | 'body' | 'contentPath' | 'updatedAt'>;
 	module: { slug: string; title: string };
 	course: { id: number; slug: string; title: string };
 	assignments: Pick<Assignment, 'id' | 'slug' | 'title' | 'brief' | 'spec'>[];
+	/** the clips learners may play (ready ones), oldest first */
+	clips: ClipCardSource[];
 	neighbours: LessonPageData['neighbours'];
 };
 
@@ -35,6 +38,7 @@ type Row = {
 	previous: LessonPageData['neighbours']['previous'];
 	next: LessonPageData['neighbours']['next'];
 	assignments: LessonPageRows['assignments'];
+	clips: LessonPageRows['clips'];
 };
 
 /**
@@ -71,7 +75,13 @@ export async function readLessonPageRows(courseSlug: string, lessonSlug: string)
 				select json_agg(json_build_object('id', a.id, 'slug', a.slug, 'title', a.title, 'brief', a.brief, 'spec', a.spec)
 					order by a.position, a.id)
 				from assignments a where a.lesson_id = t.id
-			), '[]'::json) as assignments
+			), '[]'::json) as assignments,
+			coalesce((
+				select json_agg(json_build_object('id', k.id, 'name', k.name, 'title', k.title, 'status', k.status,
+					'progress', k.progress, 'error', k.error, 'durationSeconds', k.duration_seconds, 'renditions', k.renditions,
+					'poster', k.poster) order by k.created_at)
+				from lesson_clips k where k.lesson_id = t.id and k.status = 'ready'
+			), '[]'::json) as clips
 		from target t`;
 	if (!row) return null;
 	return {
@@ -91,6 +101,7 @@ export async function readLessonPageRows(courseSlug: string, lessonSlug: string)
 		module: { slug: row.module_slug, title: row.module_title },
 		course: { id: row.course_id, slug: row.course_slug, title: row.course_title },
 		assignments: row.assignments,
+		clips: row.clips,
 		neighbours: { previous: row.previous, next: row.next, position: row.position, count: row.count }
 	};
 }

@@ -1,5 +1,5 @@
-// The lesson page in one call: the lesson, its Assignments and neighbours in one query (page-query.ts), the access
-// rule, then the kept render, the viewer's progress and the Assignment cards, read side by side.
+// The lesson page in one call: the lesson, its Assignments, clips and neighbours in one query (page-query.ts), the
+// access rule, then the kept render, the viewer's progress and the Assignment cards, read side by side.
 import { error } from '@sveltejs/kit';
 import { getLesson } from '../courses';
 import { lessonAssignmentCards } from '../attempts/history';
@@ -8,7 +8,7 @@ import type { AuthUser } from '../auth';
 import type { LessonPageData } from '../../lessons/page-data';
 import { actionAccess, decideAccess, lessonPageAccess, type Guarded } from './access';
 import { readLessonPageRows } from './page-query';
-import { lessonClipCards } from '../clips/view';
+import { clipCard } from '../clips/view';
 import { renderPublishedLesson } from './published';
 
 /** A found lesson, as far as the access rule reads it. */
@@ -26,11 +26,10 @@ export async function loadLessonPage(user: AuthUser | null, url: URL, courseSlug
 	lessonPageAccess(await decideAccess(user, guardOf(found)), { url, courseSlug, lessonSlug });
 	const { lesson, module, course, neighbours } = found!;
 	// every lesson is rendered on the server, files too: a client-side import would put paid text in public bundles
-	const [rendered, visit, assignments, clips] = await Promise.all([
+	const [rendered, visit, assignments] = await Promise.all([
 		renderPublishedLesson(lesson),
 		user ? visitLesson(user.id, lesson.id) : null,
-		lessonAssignmentCards(user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found!.assignments),
-		lessonClipCards(lesson.id, { readyOnly: true })
+		lessonAssignmentCards(user, { courseId: course.id, courseSlug: course.slug, lessonSlug: lesson.slug }, found!.assignments)
 	]);
 	if (!rendered) error(404, { message: 'This lesson has no text yet.' });
 	return {
@@ -41,7 +40,7 @@ export async function loadLessonPage(user: AuthUser | null, url: URL, courseSlug
 		progress: visit ? { completed: visit.completed } : null,
 		quizAnswers: visit?.quizAnswers ?? {},
 		assignments,
-		clips,
+		clips: found!.clips.map(clipCard),
 		neighbours
 	};
 }

@@ -50,7 +50,7 @@ export const load: PageServerLoad = async (event) => {
 			return { id: a.id, slug: a.slug, title: a.title, brief: a.brief, frames: described.frames, criteria: described.criteria };
 		}),
 		// what <Clip> reads in the preview, every clip with its state (the Clips panel lists them too)
-		clips: await lessonClipCards(lesson.id, { readyOnly: false }),
+		clips: await lessonClipCards(lesson.id),
 		// tells the Quiz widget not to store answers given in the preview
 		lessonPreview: true,
 		draftForm,
