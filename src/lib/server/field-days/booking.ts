@@ -7,7 +7,7 @@ import { hasCourseAccess } from '../enrolment-access';
 import type { Tx } from '../payments/enrolments';
 import { getStripe, isStripeError } from '../payments/stripe';
 import { refundableAt } from './refund-rule';
-import { HOLD_MINUTES, lockFieldDay, markBooked, mustPay, offerFreedSeats, takenSeats, waitingPosition } from './seats';
+import { HOLD_MINUTES, lockFieldDay, markBooked, markCancelled, mustPay, offerFreedSeats, takenSeats, waitingPosition } from './seats';
 import { runFollowUps, type FollowUp } from './follow-ups';
 import { closeHeldSession, openFieldDayCheckout, releaseFailedHold } from './payment';
 
@@ -71,7 +71,9 @@ export async function bookSeat(user: AuthUser, fieldDayId: number, acknowledged:
 			holdUntil: null,
 			updatedAt: now,
 			status: 'waiting' as const,
-			waitingSince: now
+			// the database's clock under the day's lock, not `now` taken before waiting for it: the queue's order is the
+			// order in which requests got the lock, so a place told to one learner is never told to another
+			waitingSince: sql`clock_timestamp()`
 		};
 		let target: FieldDayBooking;
 		if (row) {
@@ -146,19 +148,7 @@ export async function cancelBooking(user: AuthUser, fieldDayId: number, origin: 
 		const row = await ownRow(tx, fieldDayId, user.id);
 		if (!locked || !row || row.status === 'cancelled') return null;
 		const wasBooked = row.status === 'booked';
-		await tx
-			.update(fieldDayBookings)
-			.set({
-				status: 'cancelled',
-				cancelledAt: now,
-				holdUntil: null,
-				waitingSince: null,
-				refundedCents: Math.max(row.refundedCents, refundedCents),
-				// the learner's calendar drops the event: same UID, higher SEQUENCE
-				sequence: wasBooked ? sql`${fieldDayBookings.sequence} + 1` : sql`${fieldDayBookings.sequence}`,
-				updatedAt: now
-			})
-			.where(eq(fieldDayBookings.id, row.id));
+		await markCancelled(tx, row, now, refundedCents);
 		const offers = await offerFreedSeats(tx, locked, now);
 		const followUps: FollowUp[] = offers.map((o) => ({ kind: 'offer', bookingId: o.bookingId, until: o.until }));
 		if (wasBooked) followUps.unshift({ kind: 'cancelled', bookingId: row.id });

@@ -2,7 +2,7 @@
 // participant's booking is ended one by one, paid seats refunded in full whatever the deadline, and each person told why.
 // A refund the provider refuses leaves that seat as it was; calling off again finishes the rest, and never refunds twice
 // (the refund's idempotency key is the booking's own, shared with the learner's own cancellation).
-import { and, eq, inArray, sql } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import { formatPrice } from '../../format';
 import type { AuthUser } from '../auth';
 import { recordAudit } from '../audit';
@@ -10,7 +10,7 @@ import { db } from '../db';
 import { fieldDayBookings, fieldDays, type FieldDayBooking } from '../db/schema';
 import { refundAtProvider } from './booking';
 import { runFollowUps, whenText, type FollowUp } from './follow-ups';
-import { lockFieldDay } from './seats';
+import { lockFieldDay, markCancelled } from './seats';
 
 export type CallOffOutcome =
 	| { ok: true; told: number; refunded: number; refundsLeft: number }
@@ -64,19 +64,7 @@ async function endBooking(bookingId: number, refundedCents: number, now: Date): 
 		const [current] = await tx.select().from(fieldDayBookings).where(eq(fieldDayBookings.id, bookingId)).for('update');
 		if (!current || !OPEN.includes(current.status)) return null;
 		const hadSeat = current.status === 'booked';
-		await tx
-			.update(fieldDayBookings)
-			.set({
-				status: 'cancelled',
-				cancelledAt: now,
-				holdUntil: null,
-				waitingSince: null,
-				refundedCents: Math.max(current.refundedCents, refundedCents),
-				// the learner's calendar drops the event: same UID, higher SEQUENCE
-				sequence: hadSeat ? sql`${fieldDayBookings.sequence} + 1` : sql`${fieldDayBookings.sequence}`,
-				updatedAt: now
-			})
-			.where(eq(fieldDayBookings.id, bookingId));
+		await markCancelled(tx, current, now, refundedCents);
 		const followUps: FollowUp[] = [{ kind: 'called-off', bookingId, hadSeat }];
 		if (current.status === 'held' && current.checkoutSessionId) followUps.push({ kind: 'expire-session', sessionId: current.checkoutSessionId });
 		return followUps;

@@ -92,3 +92,19 @@ export async function markBooked(tx: Tx, row: Pick<FieldDayBooking, 'id' | 'book
 		.where(eq(fieldDayBookings.id, row.id));
 }
 
+
+/** The place is given up (by the learner, or with the whole day); a seat's calendar event is dropped with a higher SEQUENCE. */
+export async function markCancelled(tx: Tx, row: Pick<FieldDayBooking, 'id' | 'status' | 'refundedCents'>, now: Date, refundedCents: number) {
+	await tx
+		.update(fieldDayBookings)
+		.set({
+			status: 'cancelled',
+			cancelledAt: now,
+			holdUntil: null,
+			waitingSince: null,
+			refundedCents: Math.max(row.refundedCents, refundedCents),
+			sequence: row.status === 'booked' ? sql`${fieldDayBookings.sequence} + 1` : sql`${fieldDayBookings.sequence}`,
+			updatedAt: now
+		})
+		.where(eq(fieldDayBookings.id, row.id));
+}
