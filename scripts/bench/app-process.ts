@@ -8,7 +8,8 @@ export async function startBuiltApp(port: number, env: Record<string, string> = 
 	if (!existsSync(join(process.cwd(), 'build', 'index.js'))) throw new Error('no built app in build/: run `npm run build` first');
 	const origin = `http://127.0.0.1:${port}`;
 	const app = spawn(process.execPath, ['build'], {
-		env: { ...process.env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: origin, ...env },
+		// the port and host are this function's own: `env` (often a copy of process.env) never moves them
+		env: { ...process.env, ORIGIN: origin, ...env, PORT: String(port), HOST: '127.0.0.1' },
 		stdio: ['ignore', 'ignore', 'inherit']
 	});
 	for (let tries = 0; tries < 120; tries++) {
