@@ -111,7 +111,10 @@ export async function startTwoNodes(): Promise<TwoNodes> {
 			children.push(app);
 			return app;
 		});
-		await Promise.all([...workers, ...apps]);
+		// every start settles before a failure is raised, so a node that did come up is stopped with the rest
+		const started = await Promise.allSettled([...workers, ...apps]);
+		const failed = started.find((s) => s.status === 'rejected');
+		if (failed) throw failed.reason;
 	} catch (error) {
 		await stop();
 		throw error;
