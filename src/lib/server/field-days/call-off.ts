@@ -18,6 +18,19 @@ export type CallOffOutcome =
 
 const OPEN: FieldDayBooking['status'][] = ['booked', 'held', 'offered', 'waiting'];
 
+/** Every place on the day not yet ended: seats, holds, offers and the waiting list. */
+function openBookings(fieldDayId: number) {
+	return db
+		.select()
+		.from(fieldDayBookings)
+		.where(and(eq(fieldDayBookings.fieldDayId, fieldDayId), inArray(fieldDayBookings.status, OPEN)));
+}
+
+/** What a paid seat still has to get back. */
+function owedCents(booking: FieldDayBooking): number {
+	return booking.status === 'booked' && booking.paymentIntentId ? booking.amountCents - booking.refundedCents : 0;
+}
+
 export async function callOffFieldDay(actor: AuthUser, id: number, reason: string, origin: string, now = new Date()): Promise<CallOffOutcome> {
 	const closed = await db.transaction(async (tx) => {
 		const day = await lockFieldDay(tx, id);
@@ -31,15 +44,12 @@ export async function callOffFieldDay(actor: AuthUser, id: number, reason: strin
 	});
 	if (!closed.ok) return closed;
 
-	const open = await db
-		.select()
-		.from(fieldDayBookings)
-		.where(and(eq(fieldDayBookings.fieldDayId, id), inArray(fieldDayBookings.status, OPEN)));
+	const open = await openBookings(id);
 	let told = 0;
 	let refunded = 0;
 	let refundsLeft = 0;
 	for (const booking of open) {
-		const owed = booking.status === 'booked' && booking.paymentIntentId ? booking.amountCents - booking.refundedCents : 0;
+		const owed = owedCents(booking);
 		if (owed > 0) {
 			if (!(await refundAtProvider(booking)).ok) {
 				refundsLeft++;
@@ -47,7 +57,7 @@ export async function callOffFieldDay(actor: AuthUser, id: number, reason: strin
 			}
 			refunded++;
 		}
-		const followUps = await endBooking(booking.id, owed > 0 ? booking.amountCents : booking.refundedCents, now);
+		const followUps = await endBooking(id, booking.id, owed > 0 ? booking.amountCents : booking.refundedCents, now);
 		if (followUps) {
 			told++;
 			await runFollowUps(followUps, origin);
@@ -57,10 +67,9 @@ export async function callOffFieldDay(actor: AuthUser, id: number, reason: strin
 }
 
 /** Ends one booking under the day's lock (a payment settling at the same moment waits for it); null when it had ended. */
-async function endBooking(bookingId: number, refundedCents: number, now: Date): Promise<FollowUp[] | null> {
+async function endBooking(fieldDayId: number, bookingId: number, refundedCents: number, now: Date): Promise<FollowUp[] | null> {
 	return db.transaction(async (tx) => {
-		const [row] = await tx.select().from(fieldDayBookings).where(eq(fieldDayBookings.id, bookingId));
-		if (!row || !(await lockFieldDay(tx, row.fieldDayId))) return null;
+		if (!(await lockFieldDay(tx, fieldDayId))) return null;
 		const [current] = await tx.select().from(fieldDayBookings).where(eq(fieldDayBookings.id, bookingId)).for('update');
 		if (!current || !OPEN.includes(current.status)) return null;
 		const hadSeat = current.status === 'booked';
@@ -75,12 +84,9 @@ async function endBooking(bookingId: number, refundedCents: number, now: Date): 
 export async function callOffSummary(id: number) {
 	const [day] = await db.select().from(fieldDays).where(eq(fieldDays.id, id));
 	if (!day) return null;
-	const open = await db
-		.select()
-		.from(fieldDayBookings)
-		.where(and(eq(fieldDayBookings.fieldDayId, id), inArray(fieldDayBookings.status, OPEN)));
+	const open = await openBookings(id);
 	const seats = open.filter((b) => b.status === 'booked');
-	const owed = seats.reduce((sum, b) => sum + (b.paymentIntentId ? b.amountCents - b.refundedCents : 0), 0);
+	const owed = seats.reduce((sum, b) => sum + owedCents(b), 0);
 	return {
 		title: day.title,
 		slug: day.slug,
